@@ -1,0 +1,10 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  // Native and ORM packages stay outside the bundle and load from node_modules at run time.
+  serverExternalPackages: ['sequelize', 'sqlite3', 'smtp-server', 'nodemailer', 'bcryptjs'],
+  poweredByHeader: false,
+  reactStrictMode: true,
+  typescript: { tsconfigPath: './tsconfig.json' },
+};
+
+module.exports = nextConfig;
