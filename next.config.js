@@ -4,6 +4,8 @@ const nextConfig = {
   serverExternalPackages: ['sequelize', 'sqlite3', 'smtp-server', 'nodemailer', 'bcryptjs'],
   poweredByHeader: false,
   reactStrictMode: true,
+  // forbidden() renders app/forbidden.tsx with a 403 status.
+  experimental: { authInterrupts: true },
   typescript: { tsconfigPath: './tsconfig.json' },
 };
 

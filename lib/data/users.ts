@@ -1,0 +1,88 @@
+import 'server-only';
+import bcrypt from 'bcryptjs';
+import { db } from '@/models';
+import { Conflict, Forbidden, Invalid, NotFound } from '@/lib/api/errors';
+import type { Role } from '@/lib/auth/permissions';
+
+export interface UserRow {
+  id: number;
+  name: string;
+  email: string;
+  role: Role;
+  active: boolean;
+  mustChangePassword: boolean;
+  createdAt: string;
+}
+
+function row(u: InstanceType<ReturnType<typeof db>['User']>): UserRow {
+  return {
+    id: u.id,
+    name: u.name,
+    email: u.email,
+    role: u.role,
+    active: u.active,
+    mustChangePassword: u.mustChangePassword,
+    createdAt: u.createdAt.toISOString(),
+  };
+}
+
+export async function getOrganization({ orgId }: { orgId: number }) {
+  const { Organization } = db();
+  const org = await Organization.findByPk(orgId);
+  if (!org) throw new NotFound('Organization');
+  return org;
+}
+
+export async function listUsers({ orgId }: { orgId: number }): Promise<UserRow[]> {
+  const { User } = db();
+  const users = await User.findAll({ where: { organizationId: orgId }, order: [['active', 'DESC'], ['name', 'ASC']] });
+  return users.map(row);
+}
+
+export async function createUser({ orgId, name, email, role, temporaryPassword }: { orgId: number; name: string; email: string; role: Role; temporaryPassword: string }) {
+  const { User } = db();
+  const existing = await User.findOne({ where: { email } });
+  // The same answer whether the address belongs to this organization or another: it tells nothing more.
+  if (existing) throw new Conflict('That e-mail address is already in use.');
+  const passwordHash = await bcrypt.hash(temporaryPassword, 10);
+  const u = await User.create({ organizationId: orgId, name, email, role, passwordHash, mustChangePassword: true });
+  return row(u);
+}
+
+export async function updateUser({ orgId, actorId, userId, role, active }: { orgId: number; actorId: number; userId: number; role?: Role; active?: boolean }) {
+  const { User, sequelize } = db();
+  return sequelize.transaction(async (transaction) => {
+    const u = await User.findOne({ where: { id: userId, organizationId: orgId }, transaction });
+    if (!u) throw new NotFound('User');
+    if (u.id === actorId && (active === false || (role && role !== 'manager'))) {
+      throw new Forbidden('You cannot remove your own manager role or deactivate yourself.');
+    }
+    if (role) u.role = role;
+    if (active !== undefined) u.active = active;
+    await u.save({ transaction });
+    return row(u);
+  });
+}
+
+export async function changePassword({ userId, currentPassword, newPassword }: { userId: number; currentPassword: string; newPassword: string }) {
+  const { User } = db();
+  const u = await User.findByPk(userId);
+  if (!u) throw new NotFound('User');
+  if (!(await bcrypt.compare(currentPassword, u.passwordHash))) {
+    throw new Invalid([{ field: 'currentPassword', message: 'That is not your current password.' }]);
+  }
+  u.passwordHash = await bcrypt.hash(newPassword, 10);
+  u.mustChangePassword = false;
+  await u.save();
+}
+
+export async function updatePreferences({ userId, ...prefs }: { userId: number; tempUnit?: 'C' | 'F'; volumeUnit?: 'L' | 'qt'; name?: string }) {
+  const { User } = db();
+  const u = await User.findByPk(userId);
+  if (!u) throw new NotFound('User');
+  if (prefs.tempUnit) u.tempUnit = prefs.tempUnit;
+  if (prefs.volumeUnit) u.volumeUnit = prefs.volumeUnit;
+  if (prefs.name) u.name = prefs.name;
+  await u.save();
+  return { tempUnit: u.tempUnit, volumeUnit: u.volumeUnit, name: u.name };
+}

@@ -1,0 +1,26 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export class Organization extends Model<InferAttributes<Organization>, InferCreationAttributes<Organization>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  /** Forecast low below which managers get the cold-night notice (°C). */
+  declare coldNightThresholdC: CreationOptional<number>;
+  /** Local time (HH:MM, each airfield's own zone) at which the cold-night notice goes out. */
+  declare coldNightNoticeAt: CreationOptional<string>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export function initOrganization(sequelize: Sequelize) {
+  Organization.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      name: { type: DataTypes.STRING(120), allowNull: false },
+      coldNightThresholdC: { type: DataTypes.FLOAT, allowNull: false, defaultValue: -5 },
+      coldNightNoticeAt: { type: DataTypes.STRING(5), allowNull: false, defaultValue: '18:00' },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'organizations' },
+  );
+}

@@ -1,0 +1,52 @@
+import { Umzug, SequelizeStorage } from 'umzug';
+import { getSequelize } from './db';
+import { Organization, initOrganization } from './Organization';
+import { User, initUser } from './User';
+import { Airfield, initAirfield } from './Airfield';
+import { Shelter, initShelter } from './Shelter';
+import { Aircraft, initAircraft } from './Aircraft';
+import { migrations } from './migrations';
+
+export { Organization, User, Airfield, Shelter, Aircraft };
+export { getSequelize, closeSequelize } from './db';
+
+const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
+
+/** Defines every model and association on the shared instance (once per process). */
+export function db() {
+  const sequelize = getSequelize();
+  if (!g.__thawlineModelsReady || !Organization.sequelize || Organization.sequelize !== sequelize) {
+    initOrganization(sequelize);
+    initUser(sequelize);
+    initAirfield(sequelize);
+    initShelter(sequelize);
+    initAircraft(sequelize);
+
+    Organization.hasMany(User, { foreignKey: 'organizationId' });
+    User.belongsTo(Organization, { foreignKey: 'organizationId' });
+    Organization.hasMany(Airfield, { foreignKey: 'organizationId' });
+    Airfield.hasMany(Shelter, { foreignKey: 'airfieldId', as: 'shelters' });
+    Shelter.belongsTo(Airfield, { foreignKey: 'airfieldId', as: 'airfield' });
+    Shelter.hasMany(Aircraft, { foreignKey: 'shelterId', as: 'aircraft' });
+    Aircraft.belongsTo(Shelter, { foreignKey: 'shelterId', as: 'shelter' });
+    g.__thawlineModelsReady = true;
+  }
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft };
+}
+
+export function migrator() {
+  const sequelize = getSequelize();
+  return new Umzug({
+    migrations: migrations.map((m) => ({ name: m.name, up: m.up, down: m.down })),
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize }),
+    logger: undefined,
+  });
+}
+
+/** Applies every pending migration; a second run applies nothing. Returns the names applied. */
+export async function migrate(): Promise<string[]> {
+  db();
+  const done = await migrator().up();
+  return done.map((m) => m.name);
+}

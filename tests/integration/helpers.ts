@@ -1,0 +1,64 @@
+import os from 'node:os';
+import path from 'node:path';
+import fs from 'node:fs';
+import { setClaims } from './session-stub';
+
+/**
+ * A fresh SQLite file for this test file, migrated and seeded with the demo scenario.
+ * Call in beforeAll; models are imported after the environment points at the new file.
+ */
+export async function freshDatabase() {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'thawline-test-'));
+  process.env.DATABASE_FILE = path.join(dir, 'test.sqlite');
+  process.env.THAWLINE_JOBS = 'off';
+  const { resetEnvCache } = await import('@/lib/env');
+  resetEnvCache();
+  const models = await import('@/models');
+  await models.closeSequelize();
+  await models.migrate();
+  const { seedDemo } = await import('@/lib/seed/demo');
+  await seedDemo();
+  return models.db();
+}
+
+export async function signInAs(email: string) {
+  const { db } = await import('@/models');
+  const u = await db().User.findOne({ where: { email } });
+  if (!u) throw new Error(`no demo user ${email}`);
+  setClaims({ userId: u.id, orgId: u.organizationId, role: u.role });
+  return u;
+}
+
+export function signOut() {
+  setClaims(null);
+}
+
+type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+/** Calls a route handler as Next.js would, and returns the status and the parsed JSON body. */
+export async function call(
+  handler: Handler,
+  opts: { method?: string; url?: string; body?: unknown; rawBody?: string; params?: Record<string, string> } = {},
+) {
+  const url = `http://localhost${opts.url ?? '/api/test'}`;
+  const init: RequestInit = { method: opts.method ?? 'GET', headers: { 'content-type': 'application/json' } };
+  if (opts.rawBody !== undefined) init.body = opts.rawBody;
+  else if (opts.body !== undefined) init.body = JSON.stringify(opts.body);
+  const res = await handler(new Request(url, init), { params: Promise.resolve(opts.params ?? {}) });
+  const text = await res.text();
+  let json: any = null;
+  try {
+    json = JSON.parse(text);
+  } catch {
+    json = text;
+  }
+  return { status: res.status, body: json, text };
+}
+
+export const DEMO = {
+  manager: 'manager@frostvale.test',
+  operator: 'operator@frostvale.test',
+  pilot: 'pilot@frostvale.test',
+  otherManager: 'manager@ridgeway.test',
+  password: 'thaw-demo-2026',
+};
