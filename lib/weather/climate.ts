@@ -50,7 +50,8 @@ function hash01(...ints: number[]): number {
   return hash32(...ints) / 4294967296;
 }
 
-function smoothstep(x: number): number {
+/** 0 below 0, 1 above 1, a smooth S between. */
+export function smoothstep(x: number): number {
   const c = Math.min(1, Math.max(0, x));
   return c * c * (3 - 2 * c);
 }

@@ -59,13 +59,29 @@ export function nightLow(
 
 /** The outside-temperature series for the soak model: sorted by time, one point per instant. */
 export function toOutsideSeries(hours: readonly ForecastHour[]): { at: string; tempC: number }[] {
+  return toSoakInputs(hours).outside.map((p) => ({ at: new Date(p.atMs).toISOString(), tempC: p.tempC }));
+}
+
+/**
+ * The forecast as the soak model's inputs (lib/thermal SoakModel fields): outside air linear between
+ * points, wind and cloud piecewise constant from each hour. Sorted, one point per instant.
+ */
+export function toSoakInputs(hours: readonly ForecastHour[]): {
+  outside: { atMs: number; tempC: number }[];
+  wind: { atMs: number; mps: number }[];
+  cloud: { atMs: number; fraction: number }[];
+} {
   const seen = new Set<number>();
-  return hours
-    .map((h) => ({ t: ms(h.at), at: h.at, tempC: h.tempC }))
-    .filter((p) => Number.isFinite(p.t) && Number.isFinite(p.tempC))
+  const sorted = hours
+    .map((h) => ({ h, t: ms(h.at) }))
+    .filter((p) => Number.isFinite(p.t))
     .sort((a, b) => a.t - b.t)
-    .filter((p) => (seen.has(p.t) ? false : (seen.add(p.t), true)))
-    .map((p) => ({ at: new Date(p.t).toISOString(), tempC: p.tempC }));
+    .filter((p) => (seen.has(p.t) ? false : (seen.add(p.t), true)));
+  return {
+    outside: sorted.map(({ h, t }) => ({ atMs: t, tempC: h.tempC })),
+    wind: sorted.map(({ h, t }) => ({ atMs: t, mps: h.windMps })),
+    cloud: sorted.map(({ h, t }) => ({ atMs: t, fraction: h.cloudFraction })),
+  };
 }
 
 /** True when a forecast fetched at `fetchedAt` is older than `maxAgeMinutes` at `now` (or its time is unreadable). */

@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
-import type { WeatherNudge } from './climate';
+import { smoothstep, type WeatherNudge } from './climate';
 
 const HOUR_MS = 3_600_000;
 const DAY_MS = 86_400_000;
@@ -94,11 +94,6 @@ export function listScenarios(): string[] {
   } catch {
     return [];
   }
-}
-
-function smoothstep(x: number): number {
-  const c = Math.min(1, Math.max(0, x));
-  return c * c * (3 - 2 * c);
 }
 
 /** Epoch ms of the event window's [start, end] for a request made at `nowMs` at a site's longitude. */

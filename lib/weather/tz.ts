@@ -1,9 +1,6 @@
 // Small time-zone helpers for the forecast layer, built on Intl only (no clock, no I/O).
 // A zone's offset is read from Intl at a given instant, so daylight-saving changes are honoured.
 
-const HOUR_MS = 3_600_000;
-const DAY_MS = 86_400_000;
-
 const formatters = new Map<string, Intl.DateTimeFormat>();
 
 function isUtcName(zone: string): boolean {
@@ -76,5 +73,3 @@ export function localIsoMinutes(zone: string, ms: number): string {
   const local = new Date(ms + offsetSecondsAt(zone, ms) * 1000);
   return local.toISOString().slice(0, 16);
 }
-
-export { HOUR_MS, DAY_MS };
