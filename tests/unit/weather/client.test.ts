@@ -1,4 +1,5 @@
 // The forecast client against the local fake, in-process (no network), and against each fault.
+// Request parameters, response fields and units follow Open-Meteo's /v1/forecast API docs (published: its API docs).
 import { describe, expect, it } from 'vitest';
 import { createFakeFetch, fakeForecastResponse } from '@/lib/weather/fake';
 import {

@@ -1,4 +1,5 @@
 // The local fake forecast service: deterministic, seasonal, scenario-driven, Open-Meteo's format.
+// Request parameters, response fields and units follow Open-Meteo's /v1/forecast API docs (published: its API docs).
 import { describe, expect, it } from 'vitest';
 import { fakeForecastHttp, fakeForecastResponse, FakeRequestError, type FakeForecastQuery } from '@/lib/weather/fake';
 import { loadScenario, type Scenario } from '@/lib/weather/scenario';

@@ -1,4 +1,5 @@
 // The wire format: the fake served by a real HTTP server on loopback, fetched by the client with real fetch.
+// Request parameters, response fields and units follow Open-Meteo's /v1/forecast API docs (published: its API docs).
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
