@@ -13,7 +13,7 @@ function create(): Sequelize {
   if (e.DATABASE_URL) {
     return new Sequelize(e.DATABASE_URL, { logging });
   }
-  const storage = path.resolve(process.cwd(), e.DATABASE_FILE);
+  const storage = path.resolve(/* turbopackIgnore: true */ process.cwd(), e.DATABASE_FILE);
   fs.mkdirSync(path.dirname(storage), { recursive: true });
   // eslint-disable-next-line @typescript-eslint/no-require-imports
   const sqlite3 = require('sqlite3');
