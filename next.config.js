@@ -6,7 +6,8 @@ const nextConfig = {
   reactStrictMode: true,
   // forbidden() renders app/forbidden.tsx with a 403 status.
   experimental: { authInterrupts: true },
-  typescript: { tsconfigPath: './tsconfig.json' },
+  // Types are checked once, by `npm run typecheck` (CI runs it before the tests), not again inside every build.
+  typescript: { ignoreBuildErrors: true },
 };
 
 module.exports = nextConfig;
