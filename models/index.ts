@@ -5,9 +5,10 @@ import { User, initUser } from './User';
 import { Airfield, initAirfield } from './Airfield';
 import { Shelter, initShelter } from './Shelter';
 import { Aircraft, initAircraft } from './Aircraft';
+import { Forecast, initForecast } from './Forecast';
 import { migrations } from './migrations';
 
-export { Organization, User, Airfield, Shelter, Aircraft };
+export { Organization, User, Airfield, Shelter, Aircraft, Forecast };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -21,6 +22,7 @@ export function db() {
     initAirfield(sequelize);
     initShelter(sequelize);
     initAircraft(sequelize);
+    initForecast(sequelize);
 
     Organization.hasMany(User, { foreignKey: 'organizationId' });
     User.belongsTo(Organization, { foreignKey: 'organizationId' });
@@ -29,9 +31,10 @@ export function db() {
     Shelter.belongsTo(Airfield, { foreignKey: 'airfieldId', as: 'airfield' });
     Shelter.hasMany(Aircraft, { foreignKey: 'shelterId', as: 'aircraft' });
     Aircraft.belongsTo(Shelter, { foreignKey: 'shelterId', as: 'shelter' });
+    Airfield.hasOne(Forecast, { foreignKey: 'airfieldId', as: 'forecast' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast };
 }
 
 export function migrator() {

@@ -1,5 +1,6 @@
 import type { QueryInterface } from 'sequelize';
 import * as m001 from './001-foundation';
+import * as m002 from './002-forecasts';
 
 export interface Migration {
   name: string;
@@ -9,4 +10,7 @@ export interface Migration {
 
 // Every migration, in order. Add a file NNN-name.ts and list it here (an explicit list works the same
 // under tsx, vitest and the Next.js bundle, where a glob would not).
-export const migrations: Migration[] = [{ name: '001-foundation', ...m001 }];
+export const migrations: Migration[] = [
+  { name: '001-foundation', ...m001 },
+  { name: '002-forecasts', ...m002 },
+];
