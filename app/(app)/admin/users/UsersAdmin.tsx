@@ -2,7 +2,7 @@
 import useSWR from 'swr';
 import { useState } from 'react';
 import { Button, Card } from '@/components/ui/primitives';
-import { SelectField, TextField, inputClass } from '@/components/ui/Field';
+import { SelectField, TextField } from '@/components/ui/Field';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
 import { ROLES, ROLE_LABEL, type Role } from '@/lib/auth/permissions';
 import type { UserRow } from '@/lib/data/users';
@@ -35,7 +35,7 @@ export function UsersAdmin({ initial, selfId }: { initial: UserRow[]; selfId: nu
               <th scope="col" className="px-4 py-3">Name</th>
               <th scope="col" className="hidden px-4 py-3 md:table-cell">E-mail</th>
               <th scope="col" className="px-4 py-3">Role</th>
-              <th scope="col" className="px-4 py-3 text-right">Access</th>
+              <th scope="col" className="hidden px-4 py-3 text-right sm:table-cell">Access</th>
             </tr>
           </thead>
           <tbody className="divide-y divide-slate-200 dark:divide-slate-800">
@@ -45,13 +45,17 @@ export function UsersAdmin({ initial, selfId }: { initial: UserRow[]; selfId: nu
                   <div className="font-medium text-slate-900 dark:text-white">{u.name}</div>
                   <div className="text-xs text-slate-500 md:hidden">{u.email}</div>
                   {u.mustChangePassword ? <div className="text-xs text-amber-700 dark:text-amber-300">Temporary password</div> : null}
+                  {!u.active ? <div className="text-xs font-semibold text-slate-600 dark:text-slate-400">Deactivated</div> : null}
+                  <div className="mt-2 sm:hidden">
+                    <AccessButton u={u} selfId={selfId} onToggle={() => patch(u.id, { active: !u.active })} />
+                  </div>
                 </td>
                 <td className="hidden px-4 py-3 md:table-cell">{u.email}</td>
                 <td className="px-4 py-3">
                   <label className="sr-only" htmlFor={`role-${u.id}`}>Role of {u.name}</label>
                   <select
                     id={`role-${u.id}`}
-                    className={`${inputClass} min-h-10 w-32`}
+                    className={compactSelect}
                     value={u.role}
                     disabled={u.id === selfId}
                     onChange={(e) => patch(u.id, { role: e.target.value as Role })}
@@ -61,15 +65,8 @@ export function UsersAdmin({ initial, selfId }: { initial: UserRow[]; selfId: nu
                     ))}
                   </select>
                 </td>
-                <td className="px-4 py-3 text-right">
-                  {u.id === selfId ? (
-                    <span className="text-xs text-slate-500">You</span>
-                  ) : (
-                    <Button variant={u.active ? 'danger' : 'secondary'} className="min-h-10 px-3" onClick={() => patch(u.id, { active: !u.active })}>
-                      {u.active ? 'Deactivate' : 'Reactivate'}
-                      <span className="sr-only"> {u.name}</span>
-                    </Button>
-                  )}
+                <td className="hidden px-4 py-3 text-right sm:table-cell">
+                  <AccessButton u={u} selfId={selfId} onToggle={() => patch(u.id, { active: !u.active })} />
                 </td>
               </tr>
             ))}
@@ -78,6 +75,19 @@ export function UsersAdmin({ initial, selfId }: { initial: UserRow[]; selfId: nu
       </Card>
       <AddUser onAdded={() => mutate()} />
     </div>
+  );
+}
+
+const compactSelect =
+  'min-h-11 w-32 rounded-xl border border-slate-300 bg-white px-2 text-sm text-slate-900 disabled:opacity-70 dark:border-slate-700 dark:bg-slate-950 dark:text-slate-100';
+
+function AccessButton({ u, selfId, onToggle }: { u: UserRow; selfId: number; onToggle: () => void }) {
+  if (u.id === selfId) return <span className="text-xs text-slate-500">You</span>;
+  return (
+    <Button variant={u.active ? 'danger' : 'secondary'} className="min-h-10 px-3" onClick={onToggle}>
+      {u.active ? 'Deactivate' : 'Reactivate'}
+      <span className="sr-only"> {u.name}</span>
+    </Button>
   );
 }
 
