@@ -8,6 +8,8 @@ export interface ThermalParams {
   couplingWPerK?: number;
   /** Loss coefficients are multiplied by this when the cover is on (0 < f ≤ 1). */
   coverFactor: number;
+  /** k in G(v) = G0·(1 + k·√v) on an open tie-down. */
+  windCoefficient?: number;
   source: 'preset' | 'manual' | 'fitted';
 }
 

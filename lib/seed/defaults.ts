@@ -1,15 +1,20 @@
 import type { ShelterKind } from '@/models/Shelter';
 import type { ThermalParams } from '@/models/Aircraft';
+import { SHELTER_KINDS as SHELTER_PRESETS } from '@/lib/thermal/presets';
 
-// Defaults for new records, by kind and engine class. Provisional estimates until the soak model's presets land.
-export function shelterDefaultsFor(kind: ShelterKind) {
-  const table: Record<ShelterKind, { heatCapacityJPerK: number; lossWPerK: number; solarApertureM2: number; setpointC?: number; heatingPowerW?: number }> = {
-    'heated-hangar': { heatCapacityJPerK: 4.0e7, lossWPerK: 900, solarApertureM2: 60, setpointC: 8, heatingPowerW: 15000 },
-    'unheated-hangar': { heatCapacityJPerK: 3.0e7, lossWPerK: 1200, solarApertureM2: 60 },
-    't-hangar': { heatCapacityJPerK: 4.0e6, lossWPerK: 350, solarApertureM2: 12 },
-    'tie-down': { heatCapacityJPerK: 0, lossWPerK: 0, solarApertureM2: 0 },
-  };
-  return table[kind];
+export interface ShelterDefaults {
+  heatCapacityJPerK: number;
+  lossWPerK: number;
+  solarApertureM2: number;
+  setpointC?: number;
+  heatingPowerW?: number;
+}
+
+/** Thermal defaults for a new shelter of a kind: the soak model's shelter presets (a tie-down has no air node: zeros). */
+export function shelterDefaultsFor(kind: ShelterKind): ShelterDefaults {
+  const hangar = SHELTER_PRESETS[kind].hangar;
+  if (!hangar) return { heatCapacityJPerK: 0, lossWPerK: 0, solarApertureM2: 0 };
+  return { ...hangar };
 }
 
 export function aircraftDefaultsFor(engineClass: string): { oilQuantityL: number; thermal: ThermalParams } {
