@@ -26,6 +26,10 @@ export class Aircraft extends Model<InferAttributes<Aircraft>, InferCreationAttr
   declare lastShutdownAt: CreationOptional<Date | null>;
   declare lastShutdownOilC: CreationOptional<number | null>;
   declare archivedAt: CreationOptional<Date | null>;
+  /** Oil change due after this many engine hours since the last change (null: not set). */
+  declare oilChangeIntervalHours: CreationOptional<number | null>;
+  /** Oil change due after this many months since the last change (null: not set). */
+  declare oilChangeIntervalMonths: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -45,6 +49,8 @@ export function initAircraft(sequelize: Sequelize) {
       lastShutdownAt: { type: DataTypes.DATE, allowNull: true },
       lastShutdownOilC: { type: DataTypes.FLOAT, allowNull: true },
       archivedAt: { type: DataTypes.DATE, allowNull: true },
+      oilChangeIntervalHours: { type: DataTypes.FLOAT, allowNull: true },
+      oilChangeIntervalMonths: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

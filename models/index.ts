@@ -6,9 +6,13 @@ import { Airfield, initAirfield } from './Airfield';
 import { Shelter, initShelter } from './Shelter';
 import { Aircraft, initAircraft } from './Aircraft';
 import { Forecast, initForecast } from './Forecast';
+import { TempLog, initTempLog } from './TempLog';
+import { ProfileRevision, initProfileRevision } from './ProfileRevision';
+import { OilCheck, initOilCheck } from './OilCheck';
+import { OilChange, initOilChange } from './OilChange';
 import { migrations } from './migrations';
 
-export { Organization, User, Airfield, Shelter, Aircraft, Forecast };
+export { Organization, User, Airfield, Shelter, Aircraft, Forecast, TempLog, ProfileRevision, OilCheck, OilChange };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -23,6 +27,10 @@ export function db() {
     initShelter(sequelize);
     initAircraft(sequelize);
     initForecast(sequelize);
+    initTempLog(sequelize);
+    initProfileRevision(sequelize);
+    initOilCheck(sequelize);
+    initOilChange(sequelize);
 
     Organization.hasMany(User, { foreignKey: 'organizationId' });
     User.belongsTo(Organization, { foreignKey: 'organizationId' });
@@ -32,9 +40,13 @@ export function db() {
     Shelter.hasMany(Aircraft, { foreignKey: 'shelterId', as: 'aircraft' });
     Aircraft.belongsTo(Shelter, { foreignKey: 'shelterId', as: 'shelter' });
     Airfield.hasOne(Forecast, { foreignKey: 'airfieldId', as: 'forecast' });
+    TempLog.belongsTo(User, { foreignKey: 'uploadedById', as: 'uploader' });
+    ProfileRevision.belongsTo(User, { foreignKey: 'createdById', as: 'author' });
+    OilCheck.belongsTo(User, { foreignKey: 'userId', as: 'author' });
+    OilChange.belongsTo(User, { foreignKey: 'userId', as: 'author' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, TempLog, ProfileRevision, OilCheck, OilChange };
 }
 
 export function migrator() {
