@@ -1,6 +1,7 @@
 import type { QueryInterface } from 'sequelize';
 import * as m001 from './001-foundation';
 import * as m002 from './002-forecasts';
+import * as m003 from './003-planning';
 import * as m004 from './004-logs-and-oil';
 
 export interface Migration {
@@ -14,5 +15,6 @@ export interface Migration {
 export const migrations: Migration[] = [
   { name: '001-foundation', ...m001 },
   { name: '002-forecasts', ...m002 },
+  { name: '003-planning', ...m003 },
   { name: '004-logs-and-oil', ...m004 },
 ];
