@@ -7,7 +7,7 @@ export async function up({ context: q }: { context: QueryInterface }) {
     organizationId: { type: DataTypes.INTEGER, allowNull: false, references: { model: 'organizations', key: 'id' }, onDelete: 'CASCADE' },
     airfieldId: { type: DataTypes.INTEGER, allowNull: false, unique: true, references: { model: 'airfields', key: 'id' }, onDelete: 'CASCADE' },
     source: { type: DataTypes.STRING(10), allowNull: false },
-    fetchedAt: { type: DataTypes.DATE, allowNull: false },
+    fetchedAt: { type: DataTypes.DATE, allowNull: true },
     latitude: { type: DataTypes.FLOAT, allowNull: false },
     longitude: { type: DataTypes.FLOAT, allowNull: false },
     elevationM: { type: DataTypes.FLOAT, allowNull: false, defaultValue: 0 },
