@@ -26,6 +26,8 @@ interface RouteOptions<B, Q> {
   public?: boolean;
   /** Answer 201 instead of 200 (routes that create a record). */
   created?: boolean;
+  /** Largest accepted body (default 2 MiB). */
+  maxBodyBytes?: number;
 }
 
 /**
@@ -45,7 +47,7 @@ export function apiRoute<B = undefined, Q = undefined>(
       const query = opts.query
         ? opts.query.parse(Object.fromEntries(new URL(req.url).searchParams.entries()))
         : (undefined as Q);
-      const body = opts.body ? opts.body.parse(await readJson(req)) : (undefined as B);
+      const body = opts.body ? opts.body.parse(await readJson(req, opts.maxBodyBytes)) : (undefined as B);
       const result = await handler({ req, user, body, query, params });
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true }, { status: opts.created ? 201 : 200 });
@@ -56,11 +58,11 @@ export function apiRoute<B = undefined, Q = undefined>(
   };
 }
 
-export async function readJson(req: Request): Promise<unknown> {
+export async function readJson(req: Request, maxBytes = MAX_BODY_BYTES): Promise<unknown> {
   const len = Number(req.headers.get('content-length') ?? 0);
-  if (len > MAX_BODY_BYTES) throw new TooLarge();
+  if (len > maxBytes) throw new TooLarge();
   const text = await req.text();
-  if (text.length > MAX_BODY_BYTES) throw new TooLarge();
+  if (text.length > maxBytes) throw new TooLarge();
   if (!text.trim()) throw new Invalid([{ field: '(body)', message: 'Send a JSON body.' }]);
   try {
     return JSON.parse(text);
