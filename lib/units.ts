@@ -1,0 +1,32 @@
+// Unit conversions at the edge: everything is stored and computed in °C, litres, W.
+export type TempUnit = 'C' | 'F';
+export type VolumeUnit = 'L' | 'qt';
+
+export const LITRES_PER_US_QUART = 0.946352946; // exact by definition of the US liquid quart
+
+export function toDisplayTemp(c: number, unit: TempUnit): number {
+  return unit === 'F' ? (c * 9) / 5 + 32 : c;
+}
+export function fromDisplayTemp(v: number, unit: TempUnit): number {
+  return unit === 'F' ? ((v - 32) * 5) / 9 : v;
+}
+/** A temperature difference (K) in the display unit. */
+export function toDisplayDelta(k: number, unit: TempUnit): number {
+  return unit === 'F' ? (k * 9) / 5 : k;
+}
+export function tempLabel(unit: TempUnit): string {
+  return unit === 'F' ? '°F' : '°C';
+}
+export function formatTemp(c: number, unit: TempUnit, digits = 0): string {
+  return `${toDisplayTemp(c, unit).toFixed(digits)} ${tempLabel(unit)}`;
+}
+
+export function toDisplayVolume(l: number, unit: VolumeUnit): number {
+  return unit === 'qt' ? l / LITRES_PER_US_QUART : l;
+}
+export function fromDisplayVolume(v: number, unit: VolumeUnit): number {
+  return unit === 'qt' ? v * LITRES_PER_US_QUART : v;
+}
+export function volumeLabel(unit: VolumeUnit): string {
+  return unit === 'qt' ? 'US qt' : 'L';
+}
