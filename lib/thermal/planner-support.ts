@@ -1,0 +1,190 @@
+// Sensitivities of the oil temperature for the heat planner, by the adjoint of the exact stepping.
+//
+// The model is linear: over each step x_b = Φ·x_a + Γ0·(g·Tout_a + c) + Γ1·g·slope. The oil at a
+// time T is therefore e_oilᵀ·x(T), and its sensitivity to any input of an earlier step is
+// λ_bᵀ·(∂x_b/∂input), where the co-state λ is carried backwards from λ(T) = e_oil by λ_a = Φᵀ·λ_b
+// (and zeroed on the shelter at the start of a segment whose shelter is pinned at its set-point,
+// since the walk overwrites it there). One backward pass gives, at the cost of one simulation:
+//   - the oil rise at T per watt in every heater slot (what heaterResponse gives in one forward pass
+//     per slot, O(slots × steps); here O(steps));
+//   - the oil change at T per kelvin on every outside-forecast point (linear between points), and
+//     for a uniform shift of the whole forecast (the readiness probability's input).
+// The steps are the same as the walk's (segment boundaries, slot edges, the evaluation times) and
+// share its cached discretisations, so the values agree with heaterResponse to rounding.
+import { discretise } from './discretise';
+import { sampleStates } from './integrate';
+import { compile, nodeIndex, type Segment } from './plan';
+import type { HeaterSlot } from './response';
+import type { NodeName, SoakModel } from './types';
+
+export interface OilResponseAt {
+  /** The evaluation time, clamped to the run, epoch ms. */
+  atMs: number;
+  /** Oil at that time for the model as given (its own heaters included), °C. */
+  baseOilC: number;
+  /** Oil rise at that time per watt held over slot k on the heater's node, K/W (0 for slots after it). */
+  perWattK: Float64Array;
+  /** ∂oil/∂(outside forecast point i), K/K, in the order of model.outside (linear between points). */
+  perOutsideK: Float64Array;
+  /**
+   * ∂oil/∂δ for the whole outside forecast shifted by δ, K/K: the sum of perOutsideK plus the
+   * hangar air's start temperature when it defaults to the outside. A heated hangar's thermostat
+   * events are held where they are (the local derivative).
+   */
+  uniformShiftKPerK: number;
+}
+
+/** Step length in seconds rounded to the microsecond, exactly as the walk does, so cached exponentials are shared. */
+function stepSeconds(ta: number, tb: number): number {
+  return Math.round((tb - ta) * 1000) / 1e6;
+}
+
+interface StepRec {
+  seg: Segment;
+  ta: number;
+  tb: number;
+  /** Index of the outside point at or before the segment start (−1: before the first point). */
+  oi: number;
+}
+
+/**
+ * The oil's sensitivities at each of `times` to heater power per slot (on `node`) and to the outside
+ * forecast, for the model as given. One compile, one forward list of steps, one backward pass per time.
+ */
+export function oilResponses(
+  model: SoakModel,
+  opts: { node: NodeName; slots: readonly HeaterSlot[]; times: readonly number[] },
+): OilResponseAt[] {
+  const plan = compile(model);
+  const ni = nodeIndex(plan, opts.node);
+  if (ni < 0) throw new Error(`the model has no "${opts.node}" node`);
+  const n = plan.n;
+  const clamp = (t: number) => Math.min(Math.max(t, plan.startMs), plan.endMs);
+  const K = opts.slots.length;
+  const from = new Float64Array(K);
+  const to = new Float64Array(K);
+  for (let k = 0; k < K; k++) {
+    from[k] = clamp(opts.slots[k].fromMs);
+    to[k] = clamp(opts.slots[k].toMs);
+  }
+  const times = opts.times.map(clamp);
+  const last = Math.max(plan.startMs, ...times);
+  const stops = Array.from(new Set([...from, ...to, ...times]))
+    .filter((t) => t > plan.startMs && t <= last)
+    .sort((a, b) => a - b);
+
+  // Forward: the steps up to the last evaluation time.
+  const out = model.outside;
+  const steps: StepRec[] = [];
+  let j = 0;
+  let oi = -1;
+  for (const seg of plan.segs) {
+    if (seg.t0 >= last) break;
+    while (oi + 1 < out.length && out[oi + 1].atMs <= seg.t0) oi++;
+    let t = seg.t0;
+    while (t < seg.t1 && t < last) {
+      while (j < stops.length && stops[j] <= t) j++;
+      let tn = j < stops.length && stops[j] < seg.t1 ? stops[j] : seg.t1;
+      if (tn > last) tn = last;
+      steps.push({ seg, ta: t, tb: tn, oi });
+      t = tn;
+    }
+  }
+  // Which slots cover each step (slots may overlap in general).
+  const cover: number[][] = steps.map((s) => {
+    const on: number[] = [];
+    for (let k = 0; k < K; k++) if (from[k] <= s.ta && to[k] >= s.tb && to[k] > from[k]) on.push(k);
+    return on;
+  });
+  const endIndex = new Map<number, number>();
+  steps.forEach((s, i) => endIndex.set(s.tb, i));
+
+  const sortedTimes = Array.from(new Set(times)).sort((a, b) => a - b);
+  const baseStates = sampleStates(plan, sortedTimes)[plan.iO];
+  const baseAt = new Map<number, number>();
+  sortedTimes.forEach((t, i) => baseAt.set(t, baseStates[i]));
+
+  // Hangar air starting at the outside temperature (no initialTempC, not heated): it shifts too.
+  const sh = model.shelter;
+  const shelterFollowsOutside =
+    sh.kind === 'hangar' && sh.initialTempC === undefined && !(sh.setpointC !== undefined && sh.heatingPowerW !== undefined);
+  const invC = 1 / plan.caps[ni];
+  const lam = new Float64Array(n);
+  const tmp = new Float64Array(n);
+
+  return times.map((T) => {
+    const perWattK = new Float64Array(K);
+    const perOutsideK = new Float64Array(out.length);
+    lam.fill(0);
+    lam[plan.iO] = 1;
+    const endI = T <= plan.startMs ? -1 : endIndex.get(T)!;
+    for (let i = endI; i >= 0; i--) {
+      const s = steps[i];
+      const d = discretise(s.seg.sys, stepSeconds(s.ta, s.tb));
+      // Heater slots: Γ0·e_node / C per watt.
+      const on = cover[i];
+      if (on.length) {
+        let v = 0;
+        for (let r = 0; r < n; r++) v += lam[r] * d.gamma0[r * n + ni];
+        v *= invC;
+        for (const k of on) perWattK[k] += v;
+      }
+      // Outside: α = λᵀ·Γ0·g multiplies Tout at the step start, β = λᵀ·Γ1·g its slope (K/s).
+      const g = s.seg.g;
+      let alpha = 0;
+      let beta = 0;
+      for (let r = 0; r < n; r++) {
+        let a = 0;
+        let b = 0;
+        for (let m = 0; m < n; m++) {
+          a += d.gamma0[r * n + m] * g[m];
+          b += d.gamma1[r * n + m] * g[m];
+        }
+        alpha += lam[r] * a;
+        beta += lam[r] * b;
+      }
+      if (s.oi < 0) perOutsideK[0] += alpha;
+      else if (s.oi + 1 >= out.length) perOutsideK[out.length - 1] += alpha;
+      else {
+        const p = out[s.oi];
+        const q = out[s.oi + 1];
+        const span = q.atMs - p.atMs;
+        const u = (s.ta - p.atMs) / span;
+        const ds = 1000 / span; // ∂slope(K/s)/∂(q − p)
+        perOutsideK[s.oi] += alpha * (1 - u) - beta * ds;
+        perOutsideK[s.oi + 1] += alpha * u + beta * ds;
+      }
+      // λ_a = Φᵀ·λ_b.
+      for (let m = 0; m < n; m++) {
+        let v = 0;
+        for (let r = 0; r < n; r++) v += d.phi[r * n + m] * lam[r];
+        tmp[m] = v;
+      }
+      lam.set(tmp);
+      if (s.ta === s.seg.t0 && s.seg.pin === s.seg.pin) lam[plan.iS] = 0;
+    }
+    let uniform = 0;
+    for (let i = 0; i < out.length; i++) uniform += perOutsideK[i];
+    if (shelterFollowsOutside) {
+      // x0[shelter] = outside at the start, linear in the two points around it.
+      const w = outsideWeights(out, plan.startMs);
+      for (const [i, wi] of w) perOutsideK[i] += lam[plan.iS] * wi;
+      uniform += lam[plan.iS];
+    }
+    return { atMs: T, baseOilC: baseAt.get(T)!, perWattK, perOutsideK, uniformShiftKPerK: uniform };
+  });
+}
+
+/** The outside temperature at t as weights on the forecast points (linear between, flat beyond the ends). */
+function outsideWeights(pts: SoakModel['outside'], t: number): [number, number][] {
+  const n = pts.length;
+  if (t <= pts[0].atMs) return [[0, 1]];
+  if (t >= pts[n - 1].atMs) return [[n - 1, 1]];
+  let i = 0;
+  while (pts[i + 1].atMs <= t) i++;
+  const u = (t - pts[i].atMs) / (pts[i + 1].atMs - pts[i].atMs);
+  return [
+    [i, 1 - u],
+    [i + 1, u],
+  ];
+}
