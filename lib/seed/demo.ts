@@ -6,6 +6,7 @@ import { db } from '@/models';
 import type { ShelterKind } from '@/models/Shelter';
 import type { Role } from '@/lib/auth/permissions';
 import { aircraftDefaultsFor, shelterDefaultsFor } from './defaults';
+import { seedPlanning } from './planning';
 
 // The invented demo scenario (data/demo/scenario.json) written into an empty database in one transaction.
 const scenarioSchema = z.object({
@@ -116,6 +117,7 @@ export async function seedDemo(now = new Date()): Promise<string> {
         ctx.aircraftIds[ac.registration] = row.id;
       }
     }
+    await seedPlanning(ctx);
     const counts = scenario.organizations.map((o) => `${o.name}: ${o.users.length} users, ${o.airfields.length} airfields, ${o.aircraft.length} aircraft`);
     return counts.join('; ');
   });
