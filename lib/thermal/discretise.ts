@@ -74,7 +74,10 @@ export function makeSystem(n: number, A: Float64Array): LinearSystem {
   return sys;
 }
 
-function compute(sys: LinearSystem, h: number): Discretisation {
+/** ‖A‖∞·h above which the step is halved before the exponential (mathjs expm searches a bounded table). */
+const MAX_SCALED_NORM = 512;
+
+function expmStep(sys: LinearSystem, h: number): Discretisation {
   const n = sys.n;
   const m = 3 * n;
   const rows: number[][] = [];
@@ -98,6 +101,41 @@ function compute(sys: LinearSystem, h: number): Discretisation {
     }
   }
   return { h, phi, gamma0, gamma1 };
+}
+
+function matMul(n: number, a: Float64Array, b: Float64Array): Float64Array {
+  const c = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) for (let k = 0; k < n; k++) for (let j = 0; j < n; j++) c[i * n + j] += a[i * n + k] * b[k * n + j];
+  return c;
+}
+
+/**
+ * Two steps of h as one of 2h: Φ' = Φ², Γ0' = Φ·Γ0 + Γ0, Γ1' = Φ·Γ1 + h·Γ0 + Γ1
+ * (split ∫0^{2h} at h; exact, and stable for the decaying systems of the model).
+ */
+function doubled(n: number, d: Discretisation): Discretisation {
+  const { h, phi, gamma0, gamma1 } = d;
+  const g0 = matMul(n, phi, gamma0);
+  const g1 = matMul(n, phi, gamma1);
+  for (let i = 0; i < n * n; i++) {
+    g1[i] += h * gamma0[i] + gamma1[i];
+    g0[i] += gamma0[i];
+  }
+  return { h: 2 * h, phi: matMul(n, phi, phi), gamma0: g0, gamma1: g1 };
+}
+
+function compute(sys: LinearSystem, h: number): Discretisation {
+  const n = sys.n;
+  let norm = 0;
+  for (let i = 0; i < n; i++) {
+    let row = 0;
+    for (let j = 0; j < n; j++) row += Math.abs(sys.A[i * n + j]);
+    norm = Math.max(norm, row);
+  }
+  const halvings = Math.max(0, Math.ceil(Math.log2((norm * h) / MAX_SCALED_NORM)));
+  let d = expmStep(sys, h / 2 ** halvings);
+  for (let k = 0; k < halvings; k++) d = doubled(n, d);
+  return { ...d, h };
 }
 
 /** Discretisation of `sys` for a step of h seconds, cached with the system. */
