@@ -24,7 +24,7 @@ import { outputTimes, seriesOf } from './run';
 import type { SoakModel, SoakSeries } from './types';
 
 export type { SoakModel, SoakSeries, ThermalNode, HeaterInterval, ShelterModel, HangarShelter, TieDownShelter, NodeName } from './types';
-export { heaterResponse, type HeaterResponse, type HeaterSlot } from './response';
+export { heaterResponse, outsideSensitivity, type HeaterResponse, type HeaterSlot } from './response';
 export { runSimulation, toSoakModel, outputTimes, type SimulationOutput, type SimulationPoint } from './run';
 export { outsideAt } from './plan';
 export { expmCount } from './discretise';

@@ -65,7 +65,6 @@ export function sampleStates(plan: Plan, times: ArrayLike<number>, outsideOut?: 
   let f00 = 0, f01 = 0, f02 = 0, f10 = 0, f11 = 0, f12 = 0, f20 = 0, f21 = 0, f22 = 0;
   let p0 = 0, p1 = 0, p2 = 0, q0 = 0, q1 = 0, q2 = 0;
   let lastDt = -1;
-  let lastSeg: Segment | null = null;
   for (let si = 0; si < segs.length; si++) {
     const seg = segs[si];
     if (seg.pin === seg.pin) x0 = seg.pin; // the shelter is state 0 whenever it exists
@@ -73,13 +72,14 @@ export function sampleStates(plan: Plan, times: ArrayLike<number>, outsideOut?: 
     const segT0 = seg.t0;
     const tout0 = seg.tout0;
     const slope = seg.slope / 1000;
+    lastDt = -1; // P and Q belong to the segment
     // One step to each output in (t, t1], then one to t1 (unless an output fell on it).
     for (;;) {
       const rec = j < N && times[j] <= t1;
       const tn = rec ? times[j] : t1;
       const dt = tn - t;
       if (dt > 0) {
-        if (dt !== lastDt || seg !== lastSeg) {
+        if (dt !== lastDt) {
           loadStep(seg, stepSeconds(t, tn), n, F, P, Q);
           f00 = F[0]; f01 = F[1]; f02 = F[2];
           f10 = F[3]; f11 = F[4]; f12 = F[5];
@@ -87,7 +87,6 @@ export function sampleStates(plan: Plan, times: ArrayLike<number>, outsideOut?: 
           p0 = P[0]; p1 = P[1]; p2 = P[2];
           q0 = Q[0]; q1 = Q[1]; q2 = Q[2];
           lastDt = dt;
-          lastSeg = seg;
         }
         const tout = tout0 + slope * (t - segT0);
         const y0 = f00 * x0 + f01 * x1 + f02 * x2 + p0 * tout + q0;

@@ -11,7 +11,7 @@
 //     for a uniform shift of the whole forecast (the readiness probability's input).
 // The steps are the same as the walk's (segment boundaries, slot edges, the evaluation times) and
 // share its cached discretisations, so the values agree with heaterResponse to rounding.
-import { discretise } from './discretise';
+import { discretise, type Discretisation } from './discretise';
 import { sampleStates } from './integrate';
 import { compile, nodeIndex, type Segment } from './plan';
 import type { HeaterSlot } from './response';
@@ -45,6 +45,10 @@ interface StepRec {
   tb: number;
   /** Index of the outside point at or before the segment start (−1: before the first point). */
   oi: number;
+  d: Discretisation;
+  /** λᵀ-independent parts: Γ0·g and Γ1·g (the outside's input directions). */
+  g0: Float64Array;
+  g1: Float64Array;
 }
 
 /**
@@ -86,16 +90,33 @@ export function oilResponses(
       while (j < stops.length && stops[j] <= t) j++;
       let tn = j < stops.length && stops[j] < seg.t1 ? stops[j] : seg.t1;
       if (tn > last) tn = last;
-      steps.push({ seg, ta: t, tb: tn, oi });
+      const d = discretise(seg.sys, stepSeconds(t, tn));
+      const g0 = new Float64Array(n);
+      const g1 = new Float64Array(n);
+      for (let r = 0; r < n; r++) {
+        for (let m = 0; m < n; m++) {
+          g0[r] += d.gamma0[r * n + m] * seg.g[m];
+          g1[r] += d.gamma1[r * n + m] * seg.g[m];
+        }
+      }
+      steps.push({ seg, ta: t, tb: tn, oi, d, g0, g1 });
       t = tn;
     }
   }
-  // Which slots cover each step (slots may overlap in general).
-  const cover: number[][] = steps.map((s) => {
-    const on: number[] = [];
-    for (let k = 0; k < K; k++) if (from[k] <= s.ta && to[k] >= s.tb && to[k] > from[k]) on.push(k);
-    return on;
-  });
+  // Which slots cover each step (slots may overlap in general): steps are sorted, so each slot
+  // finds its first step by bisection and runs to its end.
+  const cover: number[][] = steps.map(() => []);
+  for (let k = 0; k < K; k++) {
+    if (!(to[k] > from[k])) continue;
+    let lo = 0;
+    let hi = steps.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (steps[mid].ta < from[k]) lo = mid + 1;
+      else hi = mid;
+    }
+    for (let i = lo; i < steps.length && steps[i].tb <= to[k]; i++) cover[i].push(k);
+  }
   const endIndex = new Map<number, number>();
   steps.forEach((s, i) => endIndex.set(s.tb, i));
 
@@ -120,7 +141,7 @@ export function oilResponses(
     const endI = T <= plan.startMs ? -1 : endIndex.get(T)!;
     for (let i = endI; i >= 0; i--) {
       const s = steps[i];
-      const d = discretise(s.seg.sys, stepSeconds(s.ta, s.tb));
+      const d = s.d;
       // Heater slots: Γ0·e_node / C per watt.
       const on = cover[i];
       if (on.length) {
@@ -130,18 +151,11 @@ export function oilResponses(
         for (const k of on) perWattK[k] += v;
       }
       // Outside: α = λᵀ·Γ0·g multiplies Tout at the step start, β = λᵀ·Γ1·g its slope (K/s).
-      const g = s.seg.g;
       let alpha = 0;
       let beta = 0;
       for (let r = 0; r < n; r++) {
-        let a = 0;
-        let b = 0;
-        for (let m = 0; m < n; m++) {
-          a += d.gamma0[r * n + m] * g[m];
-          b += d.gamma1[r * n + m] * g[m];
-        }
-        alpha += lam[r] * a;
-        beta += lam[r] * b;
+        alpha += lam[r] * s.g0[r];
+        beta += lam[r] * s.g1[r];
       }
       if (s.oi < 0) perOutsideK[0] += alpha;
       else if (s.oi + 1 >= out.length) perOutsideK[out.length - 1] += alpha;

@@ -101,3 +101,25 @@ export function heaterResponse(model: SoakModel, opts: { node: NodeName; slots: 
     slotEnds: { atMs: to, baseOilC: to.map((t) => baseAt.get(t)!), perWattK: endRows },
   };
 }
+
+/**
+ * Sensitivity of the oil temperature at `atMs` to each outside-temperature point, K per K
+ * (`model.outside[i]`), for carrying forecast error into a readiness probability: with point
+ * errors e_i, oil(T) ≈ oil(T) + Σ_i s_i·e_i. Exact for a tie-down and an unheated hangar (the
+ * model is linear in the outside temperature); for a heated hangar it is the local derivative
+ * (the thermostat clips). Computed by perturbing one point at a time.
+ */
+export function outsideSensitivity(model: SoakModel, atMs: number): Float64Array {
+  const T = [Math.min(Math.max(atMs, model.startMs), model.endMs)];
+  const plan0 = compile(model);
+  const base = sampleStates(plan0, T)[plan0.iO][0];
+  const delta = 1e-3;
+  const out = new Float64Array(model.outside.length);
+  for (let i = 0; i < model.outside.length; i++) {
+    if (model.outside[i].atMs > T[0] && i > 0 && model.outside[i - 1].atMs >= T[0]) continue; // cannot reach back in time
+    const outside = model.outside.map((p, k) => (k === i ? { atMs: p.atMs, tempC: p.tempC + delta } : p));
+    const plan = compile({ ...model, outside });
+    out[i] = (sampleStates(plan, T)[plan.iO][0] - base) / delta;
+  }
+  return out;
+}

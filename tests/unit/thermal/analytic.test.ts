@@ -49,6 +49,14 @@ describe('linear surroundings T∞ = Ta + b·t (SOURCES: derived; arithmetic che
   });
 });
 
+describe('stiff nodes', () => {
+  it('a node with τ = 1 ms tracks its surroundings over hour-long steps: T = T∞(t) − b·τ', () => {
+    const m = linearAmbient({ tauH: 1e-3 / 3600, T0: 80, Ta: -10, bPerH: 2, hours: 5, G: 1000 });
+    const s = simulate(m, { outputEveryMinutes: 60 });
+    for (let j = 1; j < s.atMs.length; j++) expect(s.oilC[j]).toBeCloseTo(-10 + 2 * (s.atMs[j] / H) - (2 / 3600) * 1e-3, 9);
+  });
+});
+
 describe('shortest heater run d = τ·ln((Teq − Tstart)/(Teq − Tready)) (SOURCES: derived)', () => {
   it('a 400 W heater on a 3 h node from −10 °C reaches 15 °C when the formula says', () => {
     const m = linearAmbient({ tauH: 3, T0: -10, Ta: -10, bPerH: 0, hours: 10, G: 10, powerW: 400 });

@@ -1,7 +1,7 @@
 // The planner's affine response: base + Σ perWatt·P equals a direct run with those heaters.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { heaterResponse, simulate, type SoakModel } from '@/lib/thermal';
+import { heaterResponse, outsideSensitivity, simulate, type SoakModel } from '@/lib/thermal';
 import { H, modelArb } from './models';
 
 describe('heaterResponse', () => {
@@ -52,5 +52,20 @@ describe('heaterResponse', () => {
     };
     const r = heaterResponse(m, { node: 'oil', slots: [], atMs: 5 * H });
     expect(r.baseOilC).toBeCloseTo(simulate(m, { atMs: [5 * H] }).oilC[0], 12);
+  });
+});
+
+describe('outsideSensitivity', () => {
+  it('predicts the oil at T when every outside point shifts (linear shelters)', () => {
+    fc.assert(
+      fc.property(modelArb({ hours: 10 }), fc.array(fc.double({ min: -3, max: 3, noNaN: true }), { minLength: 11, maxLength: 11 }), (m, errs) => {
+        const T = 8 * H;
+        const s = outsideSensitivity(m, T);
+        const shifted: SoakModel = { ...m, outside: m.outside.map((p, i) => ({ atMs: p.atMs, tempC: p.tempC + errs[i % errs.length] })) };
+        const predicted = simulate(m, { atMs: [T] }).oilC[0] + m.outside.reduce((acc, _, i) => acc + s[i] * errs[i % errs.length], 0);
+        expect(predicted).toBeCloseTo(simulate(shifted, { atMs: [T] }).oilC[0], 6);
+      }),
+      { numRuns: 15 },
+    );
   });
 });
