@@ -18,7 +18,7 @@ import { HeatPlan, initHeatPlan } from './HeatPlan';
 import { CalendarFeed, initCalendarFeed } from './CalendarFeed';
 import { migrations } from './migrations';
 
-export { Organization, User, Airfield, Shelter, Aircraft, Forecast, TempLog, ProfileRevision, OilCheck, OilChange };
+export { Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -68,7 +68,7 @@ export function db() {
     OilChange.belongsTo(User, { foreignKey: 'userId', as: 'author' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, TempLog, ProfileRevision, OilCheck, OilChange };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
 }
 
 export function migrator() {

@@ -1,0 +1,91 @@
+'use client';
+import useSWR from 'swr';
+import { SoakChart } from '@/components/charts/SoakChart';
+import { formatTemp } from '@/components/airfields/format';
+import { Notice } from '@/components/ui/primitives';
+import { fetcher } from '@/lib/client/fetcher';
+import { formatDayTime, formatTime } from '@/lib/time';
+import type { PlanView } from '@/lib/data/plans';
+import { ConfirmButton, money, pct } from './MorningBoard';
+import { HeatCautions } from './Cautions';
+
+interface Detail {
+  plan: PlanView;
+  series: { at: string; outsideC: number; shelterC: number; oilC: number; engineC: number | null }[];
+}
+
+const RULE = (b: PlanView['baselines'][number]) => (b.rule === 'all-night' ? 'On all night' : `On ${b.hours} h before`);
+
+/** A departure's Soak forecast with its heater bands, the plan's figures and the usual rules beside it. */
+export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { departureId: number; units: 'C' | 'F'; canConfirm: boolean; onConfirmed?: () => void }) {
+  const { data, error, mutate } = useSWR<Detail>(`/api/departures/${departureId}/plan`, fetcher);
+  if (error) return <Notice tone="caution">Could not load this plan: {error.message}</Notice>;
+  if (!data) return <div className="h-56 animate-pulse rounded-xl bg-slate-200/60 dark:bg-slate-800" aria-busy="true" aria-label="Loading the Soak forecast" />;
+  const p = data.plan;
+  const zone = p.airfield?.timeZone ?? 'UTC';
+  return (
+    <div className="space-y-4">
+      {data.series.length ? (
+        <SoakChart series={data.series} readyC={p.readyC} floorC={p.floorC ?? undefined} heaterBands={p.heaterOn} timeZone={zone} units={units} />
+      ) : null}
+      <div className="grid gap-3 text-sm sm:grid-cols-3">
+        <div>
+          <p className="font-semibold">Heat plan</p>
+          {p.heaterOn.length ? (
+            <ul className="mt-1 space-y-0.5 tabular-nums">
+              {p.heaterOn.map((b) => (
+                <li key={b.from}>
+                  {formatTime(Date.parse(b.from), zone)}–{formatTime(Date.parse(b.to), zone)}
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="mt-1 text-slate-600 dark:text-slate-400">{p.heater ? 'No heat needed.' : 'No heater fitted.'}</p>
+          )}
+          {p.mode ? <p className="mt-1 text-xs text-slate-500">{p.mode === 'single-start' ? 'One block to departure (timer or by hand).' : 'Least-cost slots (switched relay).'}</p> : null}
+        </div>
+        <div>
+          <p className="font-semibold">Prediction</p>
+          <p className="mt-1">Oil at departure {formatTemp(p.oilAtDepartureC, units)} · ready {formatTemp(p.readyC, units, 0)}</p>
+          <p>Chance of being ready {pct(p.probabilityReady)}</p>
+          {p.floor ? <p>Lowest oil after switch-on {formatTemp(p.floor.minOilC, units)} {p.floor.met ? '' : '(below the floor)'}</p> : null}
+          <p className="text-xs text-slate-500">{p.energyKWh.toFixed(2)} kWh · {money(p.cost, p.currency)}</p>
+        </div>
+        <div>
+          <p className="font-semibold">The usual rules</p>
+          <ul className="mt-1 space-y-0.5">
+            {p.baselines.map((b) => (
+              <li key={RULE(b)} className="flex justify-between gap-2 tabular-nums">
+                <span>{RULE(b)}{b.meetsReady ? '' : ' (short)'}</span>
+                <span className="text-slate-600 dark:text-slate-400">{b.energyKWh.toFixed(1)} kWh · saves {b.savedKWh.toFixed(1)}</span>
+              </li>
+            ))}
+          </ul>
+        </div>
+      </div>
+      {p.status === 'short' && p.fix ? (
+        <Notice tone="danger" title="This departure will not be ready">
+          {p.fix.readyAt ? <>With the heater on from now, the oil reaches {formatTemp(p.readyC, units, 0)} at {formatDayTime(Date.parse(p.fix.readyAt), zone)}. </> : null}
+          {p.fix.powerNeededW ? <>To be ready on time it would need about {Math.ceil(p.fix.powerNeededW / 50) * 50} W of heat. </> : null}
+          Move the departure, move the aircraft into a warmer shelter, or fit a stronger heater.
+        </Notice>
+      ) : null}
+      {p.status === 'unplanned' ? (
+        <Notice tone="danger" title="Needs heat, no plan">
+          The unheated oil will be at {formatTemp(p.freeOilAtDepartureC, units, 0)} at departure, below the ready temperature. Fit a heater or move the aircraft to a heated hangar.
+        </Notice>
+      ) : null}
+      <div className="flex flex-wrap items-center gap-3">
+        {canConfirm && p.heaterOn.length ? (
+          p.confirmed ? (
+            <span className="text-sm text-teal-700 dark:text-teal-300">Confirmed by {p.confirmed.by}</span>
+          ) : (
+            <ConfirmButton departureId={departureId} onDone={() => { mutate(); onConfirmed?.(); }} />
+          )
+        ) : null}
+        <span className="text-xs text-slate-500">Computed {formatDayTime(Date.parse(p.computedAt), zone)}{p.forecast?.stale ? ' · forecast out of date' : ''}</span>
+      </div>
+      <HeatCautions />
+    </div>
+  );
+}

@@ -1,0 +1,318 @@
+import 'server-only';
+import crypto from 'node:crypto';
+import { db } from '@/models';
+import { NotFound } from '@/lib/api/errors';
+import { planDeparture } from '@/lib/planner';
+import type { PlanResult } from '@/lib/planner/types';
+import { simulate } from '@/lib/thermal';
+import { withHeater } from '@/lib/planner/model';
+import { planRequestFor, primaryHeater, soakModelFor, type PlanRecords } from '@/lib/plans/build';
+import { forecastFor } from './forecasts';
+import { getDeparture, listDepartures, type Actor, type DepartureRecord } from './departures';
+import { tariffPeriodsBetween, tariffsFor, type TariffRecord } from './tariffs';
+import type { Airfield } from '@/models/Airfield';
+import type { Forecast } from '@/models/Forecast';
+
+// Heat plans: computed from the departure, the aircraft and its heaters, the shelter, the airfield's
+// cached forecast and tariff; stored with a fingerprint of those inputs, recomputed when it changes.
+
+export type Readiness = 'ready' | 'warming' | 'short' | 'unplanned';
+const RANK: Record<Readiness, number> = { ready: 0, warming: 1, unplanned: 2, short: 3 };
+export function worstReadiness(list: Readiness[]): Readiness | null {
+  return list.length ? list.reduce((w, r) => (RANK[r] > RANK[w] ? r : w)) : null;
+}
+
+/** Plans are recomputed at most this often for the same inputs (the clock moves the earliest switch-on). */
+const NOW_STEP_MS = 10 * 60_000;
+const iso = (ms: number | null | undefined) => (ms === null || ms === undefined ? null : new Date(ms).toISOString());
+
+export interface PlanView {
+  departureId: number;
+  departAt: string;
+  readyC: number;
+  floorC: number | null;
+  notes: string;
+  aircraft: { id: number; registration: string; typeLabel: string; engineClassLabel: string; coverOnByDefault: boolean };
+  pilot: { id: number; name: string };
+  airfield: { id: number; name: string; ident: string; timeZone: string } | null;
+  shelter: { name: string; kind: string } | null;
+  heater: { kind: string; kindLabel: string; powerW: number; control: string } | null;
+  status: Readiness;
+  /** What the status means in a few words. */
+  summary: string;
+  mode: 'least-cost' | 'single-start' | null;
+  switchOnAt: string | null;
+  heaterOn: { from: string; to: string }[];
+  oilAtDepartureC: number | null;
+  freeOilAtDepartureC: number | null;
+  probabilityReady: number | null;
+  energyKWh: number;
+  cost: number | null;
+  currency: string;
+  fix: { readyAt: string | null; powerNeededW: number | null } | null;
+  baselines: { rule: string; hours?: number; energyKWh: number; cost: number | null; oilAtDepartureC: number; meetsReady: boolean; savedKWh: number; savedCost: number | null }[];
+  floor: { minOilC: number; met: boolean } | null;
+  confirmed: { by: string; at: string } | null;
+  computedAt: string;
+  forecast: { fetchedAt: string | null; stale: boolean } | null;
+  problem?: string;
+}
+
+interface Context {
+  forecasts: Map<number, Forecast | null>;
+  tariffs: Map<number, TariffRecord>;
+  now: Date;
+}
+
+function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
+  const af = d.aircraft.airfield;
+  const fc = af ? ctx.forecasts.get(af.id) : null;
+  if (!af || !fc || !fc.hours?.length) return null;
+  const tariff = ctx.tariffs.get(af.id) ?? null;
+  const startMs = d.departAtMs - 40 * 3_600_000;
+  return {
+    departure: { id: d.id, departAtMs: d.departAtMs, readyC: d.readyC, floorC: d.floorC },
+    aircraft: {
+      engineClass: d.aircraft.engineClass,
+      thermal: d.aircraft.thermal,
+      coverOnByDefault: d.aircraft.coverOnByDefault,
+      lastShutdownAtMs: d.aircraft.lastShutdownAt ? Date.parse(d.aircraft.lastShutdownAt) : null,
+      lastShutdownOilC: d.aircraft.lastShutdownOilC,
+    },
+    heaters: d.aircraft.heaters.map((h) => ({ kind: h.kind, powerW: h.powerW, node: h.node, control: h.control, slotMinutes: h.slotMinutes })),
+    shelter: d.aircraft.shelter,
+    site: { lat: af.latitude, lon: af.longitude },
+    hours: fc.hours,
+    tariff: tariffPeriodsBetween({ tariff, timeZone: af.timeZone, fromMs: startMs, toMs: d.departAtMs + 3_600_000 }).map((p) => ({
+      fromMs: p.fromMs,
+      toMs: p.toMs,
+      pricePerKWh: p.pricePerKWh,
+    })),
+    forecastIssuedAtMs: fc.fetchedAt ? new Date(fc.fetchedAt).getTime() : null,
+  };
+}
+
+function keyOf(r: PlanRecords, nowMs: number) {
+  const h = crypto.createHash('sha256');
+  h.update(JSON.stringify({ ...r, hours: r.hours.length, issued: r.forecastIssuedAtMs, now: Math.floor(nowMs / NOW_STEP_MS) }));
+  h.update(JSON.stringify(r.hours));
+  return h.digest('hex');
+}
+
+interface Computed {
+  status: Readiness;
+  result: PlanResult | null;
+  freeOilC: number | null;
+  problem?: string;
+}
+
+function compute(r: PlanRecords, nowMs: number): Computed {
+  const model = soakModelFor(r);
+  const req = planRequestFor(r, Math.floor(nowMs / NOW_STEP_MS) * NOW_STEP_MS, model);
+  if (!req) {
+    const s = simulate(model, { atMs: [r.departure.departAtMs] });
+    const free = s.oilC[0];
+    return { status: free >= r.departure.readyC ? 'ready' : 'unplanned', result: null, freeOilC: free };
+  }
+  const result = planDeparture(req);
+  return { status: result.status, result, freeOilC: result.freeOilAtDepartureC };
+}
+
+function summaryOf(status: Readiness, v: { heater: PlanView['heater']; fix: PlanView['fix'] }): string {
+  switch (status) {
+    case 'ready':
+      return 'Warm enough without heat';
+    case 'warming':
+      return 'Heat plan on track';
+    case 'short':
+      return v.fix?.readyAt ? 'Cannot be ready in time' : 'Heater too weak to reach the ready temperature';
+    default:
+      return v.heater ? 'Needs heat, no plan' : 'Needs heat: no heater fitted';
+  }
+}
+
+function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confirmedBy: string | null; confirmedAt: Date | null } | null, ctx: Context, currency: string): PlanView {
+  const r = c.result;
+  const heater = primaryHeater(d.aircraft.heaters);
+  const af = d.aircraft.airfield;
+  const fc = af ? ctx.forecasts.get(af.id) : null;
+  const fix = r?.fix ? { readyAt: iso(r.fix.readyAtMs), powerNeededW: r.fix.powerNeededW } : null;
+  const heaterView = heater ? { kind: heater.kind, kindLabel: heater.kindLabel, powerW: heater.powerW, control: heater.control } : null;
+  const base = r ? [r.baselines.allNight, ...r.baselines.hoursBefore] : [];
+  return {
+    departureId: d.id,
+    departAt: d.departAt,
+    readyC: d.readyC,
+    floorC: d.floorC,
+    notes: d.notes,
+    aircraft: { id: d.aircraft.id, registration: d.aircraft.registration, typeLabel: d.aircraft.typeLabel, engineClassLabel: d.aircraft.engineClassLabel, coverOnByDefault: d.aircraft.coverOnByDefault },
+    pilot: d.pilot,
+    airfield: af ? { id: af.id, name: af.name, ident: af.ident, timeZone: af.timeZone } : null,
+    shelter: d.aircraft.shelter ? { name: d.aircraft.shelter.name, kind: d.aircraft.shelter.kind } : null,
+    heater: heaterView,
+    status: c.status,
+    summary: c.problem ?? summaryOf(c.status, { heater: heaterView, fix }),
+    mode: r?.mode ?? null,
+    switchOnAt: r && r.heaterOn.length ? iso(r.switchOnAtMs ?? r.heaterOn[0].fromMs) : null,
+    heaterOn: (r?.heaterOn ?? []).map((i) => ({ from: iso(i.fromMs)!, to: iso(i.toMs)! })),
+    oilAtDepartureC: r ? r.oilAtDepartureC : c.freeOilC,
+    freeOilAtDepartureC: c.freeOilC,
+    probabilityReady: r ? r.probabilityReady : null,
+    energyKWh: r?.energyKWh ?? 0,
+    cost: r?.cost ?? null,
+    currency,
+    fix: c.status === 'short' ? fix : null,
+    baselines: base.map((b) => ({
+      rule: b.rule,
+      hours: b.hours,
+      energyKWh: b.energyKWh,
+      cost: b.cost ?? null,
+      oilAtDepartureC: b.oilAtDepartureC,
+      meetsReady: b.meetsReady,
+      savedKWh: b.saved.energyKWh,
+      savedCost: b.saved.cost ?? null,
+    })),
+    floor: r?.floor ? { minOilC: r.floor.minOilC, met: r.floor.met } : null,
+    confirmed: plan?.confirmedAt && plan.confirmedBy ? { by: plan.confirmedBy, at: plan.confirmedAt.toISOString() } : null,
+    computedAt: (plan?.computedAt ?? ctx.now).toISOString(),
+    forecast: fc ? { fetchedAt: fc.fetchedAt ? new Date(fc.fetchedAt).toISOString() : null, stale: !!fc.lastErrorKind } : null,
+  };
+}
+
+async function contextFor(orgId: number, departures: DepartureRecord[], now: Date, refresh: 'never' | 'if-old'): Promise<Context> {
+  const { Airfield } = db();
+  const ids = [...new Set(departures.map((d) => d.aircraft.airfield?.id).filter((x): x is number => !!x))];
+  const airfields = ids.length ? await Airfield.findAll({ where: { organizationId: orgId, id: ids } }) : [];
+  const forecasts = new Map<number, Forecast | null>();
+  await Promise.all(airfields.map(async (a: Airfield) => forecasts.set(a.id, await forecastFor({ airfield: a, now, refresh }))));
+  const tariffs = await tariffsFor({ orgId, airfieldIds: ids });
+  return { forecasts, tariffs, now };
+}
+
+/**
+ * Plans for the given departures: each is read from its stored Heat plan when the inputs are unchanged,
+ * otherwise recomputed and stored (a confirmation lapses when the inputs change).
+ */
+async function plansFor(orgId: number, departures: DepartureRecord[], now: Date, refresh: 'never' | 'if-old'): Promise<PlanView[]> {
+  if (!departures.length) return [];
+  const { HeatPlan, User } = db();
+  const ctx = await contextFor(orgId, departures, now, refresh);
+  const stored = await HeatPlan.findAll({ where: { organizationId: orgId, departureId: departures.map((d) => d.id) } });
+  const byDep = new Map(stored.map((p) => [p.departureId, p]));
+  const confirmers = new Map(
+    (await User.findAll({ where: { organizationId: orgId, id: stored.map((p) => p.confirmedById).filter((x): x is number => !!x) }, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]),
+  );
+  const out: PlanView[] = [];
+  for (const d of departures) {
+    const currency = d.aircraft.airfield ? (ctx.tariffs.get(d.aircraft.airfield.id)?.currency ?? 'EUR') : 'EUR';
+    const rec = recordsFor(d, ctx);
+    if (!rec) {
+      out.push({ ...viewOf(d, { status: 'unplanned', result: null, freeOilC: null }, null, ctx, currency), summary: 'No forecast yet for this airfield', problem: 'no-forecast' });
+      continue;
+    }
+    const key = keyOf(rec, now.getTime());
+    let row = byDep.get(d.id);
+    let computed: Computed;
+    if (row && row.inputsKey === key) {
+      computed = row.result as Computed;
+    } else {
+      computed = compute(rec, now.getTime());
+      const values = {
+        organizationId: orgId,
+        departureId: d.id,
+        inputsKey: key,
+        computedAt: now,
+        status: computed.status,
+        switchOnAt: computed.result?.heaterOn.length ? new Date(computed.result.switchOnAtMs ?? computed.result.heaterOn[0].fromMs) : null,
+        oilAtDepartureC: computed.result?.oilAtDepartureC ?? computed.freeOilC ?? 0,
+        energyKWh: computed.result?.energyKWh ?? 0,
+        cost: computed.result?.cost ?? null,
+        probabilityReady: computed.result?.probabilityReady ?? null,
+        result: computed,
+      };
+      if (row) {
+        const keep = row.confirmedKey === key;
+        await row.update({ ...values, ...(keep ? {} : { confirmedAt: null, confirmedById: null, confirmedKey: null }) });
+      } else {
+        row = await HeatPlan.create(values);
+      }
+    }
+    const confirmed = row.confirmedKey === row.inputsKey && row.confirmedById ? confirmers.get(row.confirmedById) ?? null : null;
+    out.push(viewOf(d, computed, { computedAt: row.computedAt, confirmedBy: confirmed, confirmedAt: confirmed ? row.confirmedAt : null }, ctx, currency));
+  }
+  return out;
+}
+
+function bySwitchOn(a: PlanView, b: PlanView) {
+  const ta = a.switchOnAt ? Date.parse(a.switchOnAt) : Date.parse(a.departAt);
+  const tb = b.switchOnAt ? Date.parse(b.switchOnAt) : Date.parse(b.departAt);
+  return ta - tb || Date.parse(a.departAt) - Date.parse(b.departAt);
+}
+
+/** The window of "the next morning": from now to the end of tomorrow 14:00 UTC-ish, read per airfield as local 14:00 tomorrow. */
+export function nextMorningWindow(now: Date) {
+  return { fromMs: now.getTime() - 30 * 60_000, toMs: now.getTime() + 36 * 3_600_000 };
+}
+
+/** The Morning board: the next morning's departures, in switch-on order, with totals. */
+export async function morningBoard({ orgId, now = new Date(), airfieldId, refresh = 'if-old' }: { orgId: number; now?: Date; airfieldId?: number; refresh?: 'never' | 'if-old' }) {
+  const w = nextMorningWindow(now);
+  const deps = await listDepartures({ orgId, fromMs: w.fromMs, toMs: w.toMs, airfieldId });
+  const plans = (await plansFor(orgId, deps, now, refresh)).sort(bySwitchOn);
+  const totals = plans.reduce(
+    (t, p) => ({ energyKWh: t.energyKWh + p.energyKWh, cost: t.cost + (p.cost ?? 0) }),
+    { energyKWh: 0, cost: 0 },
+  );
+  const counts = { ready: 0, warming: 0, short: 0, unplanned: 0 } as Record<Readiness, number>;
+  for (const p of plans) counts[p.status]++;
+  return { generatedAt: now.toISOString(), window: { from: iso(w.fromMs)!, to: iso(w.toMs)! }, plans, totals, counts };
+}
+
+/** A pilot's upcoming departures with their plans. */
+export async function pilotPlans({ orgId, pilotId, now = new Date(), days = 8 }: { orgId: number; pilotId: number; now?: Date; days?: number }) {
+  const deps = await listDepartures({ orgId, fromMs: now.getTime() - 30 * 60_000, toMs: now.getTime() + days * 86_400_000, pilotId });
+  return plansFor(orgId, deps, now, 'if-old');
+}
+
+/** Plans for any departures in a window (alerts, calendar, map). */
+export async function plansBetween({ orgId, fromMs, toMs, now = new Date(), refresh = 'never' }: { orgId: number; fromMs: number; toMs: number; now?: Date; refresh?: 'never' | 'if-old' }) {
+  const deps = await listDepartures({ orgId, fromMs, toMs });
+  return plansFor(orgId, deps, now, refresh);
+}
+
+/** One departure's plan and its Soak forecast curve (with the plan's heater bands). */
+export async function planDetail({ orgId, departureId, actor, now = new Date() }: { orgId: number; departureId: number; actor: Actor; now?: Date }) {
+  const d = await getDeparture({ orgId, departureId, actor });
+  const [view] = await plansFor(orgId, [d], now, 'if-old');
+  const ctx = await contextFor(orgId, [d], now, 'never');
+  const rec = recordsFor(d, ctx);
+  let series: { at: string; outsideC: number; shelterC: number; oilC: number; engineC: number | null }[] = [];
+  if (rec) {
+    const model = soakModelFor(rec);
+    const heater = primaryHeater(rec.heaters);
+    const on = view.heaterOn.map((i) => ({ fromMs: Date.parse(i.from), toMs: Date.parse(i.to) }));
+    const m = heater && on.length ? withHeater(model, { node: heater.node === 'engine' && !model.engine ? 'oil' : heater.node, powerW: heater.powerW }, on) : model;
+    const s = simulate(m, { outputEveryMinutes: 10 });
+    series = Array.from(s.atMs, (t, i) => ({
+      at: iso(t)!,
+      outsideC: round2(s.outsideC[i]),
+      shelterC: round2(s.shelterC[i]),
+      oilC: round2(s.oilC[i]),
+      engineC: s.engineC ? round2(s.engineC[i]) : null,
+    }));
+  }
+  return { plan: view, series };
+}
+
+const round2 = (v: number) => Math.round(v * 100) / 100;
+
+/** An operator confirms the plan as computed now; a later change of inputs needs a new confirmation. */
+export async function confirmPlan({ orgId, departureId, userId, now = new Date() }: { orgId: number; departureId: number; userId: number; now?: Date }) {
+  const d = await getDeparture({ orgId, departureId });
+  const [view] = await plansFor(orgId, [d], now, 'never');
+  const { HeatPlan } = db();
+  const row = await HeatPlan.findOne({ where: { organizationId: orgId, departureId } });
+  if (!row) throw new NotFound('Heat plan');
+  await row.update({ confirmedById: userId, confirmedAt: now, confirmedKey: row.inputsKey });
+  return { ...view, confirmed: { by: 'you', at: now.toISOString() } };
+}

@@ -1,0 +1,113 @@
+// Pure: turns stored records (plain data) into the soak model and the planner's request.
+// No database, network or clock: the caller passes `nowMs` and the forecast hours.
+import type { ForecastHour } from '@/lib/weather/types';
+import { toSoakInputs } from '@/lib/weather/derive';
+import { ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
+import { outsideAt, type SoakModel } from '@/lib/thermal';
+import type { PlanMode, PlanRequest, TariffPeriod } from '@/lib/planner/types';
+
+const HOUR = 3_600_000;
+/** How long before departure the model starts at the latest (a longer-parked engine is cold-soaked). */
+export const MAX_SOAK_HOURS = 36;
+/** The Soak forecast runs on past departure, so the chart shows the morning. */
+export const AFTER_DEPARTURE_HOURS = 1.5;
+
+export type HeaterControl = 'timer' | 'relay' | 'manual';
+
+export interface PlanRecords {
+  departure: { id: number; departAtMs: number; readyC: number; floorC: number | null };
+  aircraft: {
+    engineClass: string;
+    thermal: {
+      nodes: { name: 'oil' | 'engine'; heatCapacityJPerK: number; lossWPerK: number }[];
+      couplingWPerK?: number;
+      coverFactor: number;
+      windCoefficient?: number;
+    };
+    coverOnByDefault: boolean;
+    lastShutdownAtMs: number | null;
+    lastShutdownOilC: number | null;
+  };
+  heaters: { kind: string; powerW: number; node: 'oil' | 'engine'; control: HeaterControl; slotMinutes: number }[];
+  shelter: { kind: string; heatCapacityJPerK: number; lossWPerK: number; setpointC: number | null; heatingPowerW: number | null; solarApertureM2: number } | null;
+  site: { lat: number; lon: number };
+  hours: readonly ForecastHour[];
+  tariff: TariffPeriod[];
+  forecastIssuedAtMs: number | null;
+}
+
+/** The heater the plan drives: the strongest one fitted. */
+export function primaryHeater<H extends { powerW: number }>(heaters: readonly H[]): H | null {
+  return [...heaters].sort((a, b) => b.powerW - a.powerW)[0] ?? null;
+}
+
+/** A relay can follow the least-cost slots; a plain timer, or a heater switched by hand, goes on once and stays on to departure. */
+export function modeFor(control: HeaterControl): PlanMode {
+  return control === 'relay' ? 'least-cost' : 'single-start';
+}
+
+/**
+ * The soak model from the last shutdown (or, for an engine parked longer than MAX_SOAK_HOURS, from that
+ * far back with the oil at the outside air — cold-soaked) to a little after departure.
+ */
+export function soakModelFor(r: PlanRecords): SoakModel {
+  const inputs = toSoakInputs(r.hours);
+  if (!inputs.outside.length) throw new Error('no forecast hours');
+  const dep = r.departure.departAtMs;
+  const preset = ENGINE_CLASSES[r.aircraft.engineClass as EngineClassId];
+  const earliest = dep - MAX_SOAK_HOURS * HOUR;
+  const shutdown = r.aircraft.lastShutdownAtMs;
+  const fresh = shutdown !== null && shutdown >= earliest && shutdown < dep;
+  const startMs = fresh ? shutdown! : Math.max(earliest, inputs.outside[0].atMs);
+  const outsideAtStart = outsideAt(inputs.outside, startMs);
+  const oilC = fresh ? (r.aircraft.lastShutdownOilC ?? preset?.shutdownOilC ?? 80) : outsideAtStart;
+  const engineC = fresh ? (preset?.shutdownEngineC ?? oilC) : outsideAtStart;
+  const oilNode = r.aircraft.thermal.nodes.find((n) => n.name === 'oil') ?? r.aircraft.thermal.nodes[0];
+  const engineNode = r.aircraft.thermal.nodes.find((n) => n.name === 'engine');
+  const s = r.shelter;
+  const heated = s?.kind === 'heated-hangar' && s.setpointC !== null && (s.heatingPowerW ?? 0) > 0;
+  const shelter: SoakModel['shelter'] =
+    !s || s.kind === 'tie-down' || !(s.heatCapacityJPerK > 0)
+      ? { kind: 'tie-down' }
+      : {
+          kind: 'hangar',
+          heatCapacityJPerK: s.heatCapacityJPerK,
+          lossWPerK: s.lossWPerK,
+          solarApertureM2: s.solarApertureM2,
+          ...(heated ? { setpointC: s.setpointC!, heatingPowerW: s.heatingPowerW! } : {}),
+        };
+  return {
+    startMs,
+    endMs: dep + AFTER_DEPARTURE_HOURS * HOUR,
+    outside: inputs.outside,
+    wind: inputs.wind,
+    cloud: inputs.cloud,
+    site: r.site,
+    shelter,
+    oil: { heatCapacityJPerK: oilNode.heatCapacityJPerK, lossWPerK: oilNode.lossWPerK, initialTempC: oilC },
+    ...(engineNode ? { engine: { heatCapacityJPerK: engineNode.heatCapacityJPerK, lossWPerK: engineNode.lossWPerK, initialTempC: engineC } } : {}),
+    couplingWPerK: r.aircraft.thermal.couplingWPerK ?? 0,
+    cover: r.aircraft.coverOnByDefault,
+    coverFactor: r.aircraft.thermal.coverFactor,
+    windCoefficient: r.aircraft.thermal.windCoefficient,
+  };
+}
+
+/** The planner's request for a departure, or null when the aircraft has no heater. */
+export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelFor(r)): PlanRequest | null {
+  const heater = primaryHeater(r.heaters);
+  if (!heater) return null;
+  return {
+    model,
+    departureMs: r.departure.departAtMs,
+    readyC: r.departure.readyC,
+    ...(r.departure.floorC !== null ? { floorC: r.departure.floorC } : {}),
+    heater: { node: heater.node === 'engine' && !model.engine ? 'oil' : heater.node, powerW: heater.powerW },
+    tariff: r.tariff,
+    slotMinutes: heater.slotMinutes || 5,
+    earliestSwitchOnMs: Math.max(model.startMs, Math.min(nowMs, r.departure.departAtMs)),
+    mode: modeFor(heater.control),
+    nowMs,
+    forecastIssuedAtMs: r.forecastIssuedAtMs ?? nowMs,
+  };
+}

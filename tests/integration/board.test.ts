@@ -1,0 +1,74 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { call, DEMO, freshDatabase, signInAs, signOut } from './helpers';
+
+let board: typeof import('@/app/api/board/route');
+let detail: typeof import('@/app/api/departures/[id]/plan/route');
+let confirm: typeof import('@/app/api/departures/[id]/plan/confirm/route');
+let mine: typeof import('@/app/api/me/departures/route');
+
+beforeAll(async () => {
+  await freshDatabase();
+  board = await import('@/app/api/board/route');
+  detail = await import('@/app/api/departures/[id]/plan/route');
+  confirm = await import('@/app/api/departures/[id]/plan/confirm/route');
+  mine = await import('@/app/api/me/departures/route');
+}, 120_000);
+
+describe('the Morning board', () => {
+  it('needs a session (401) and the plans permission (403 for a pilot)', async () => {
+    signOut();
+    expect((await call(board.GET as never)).status).toBe(401);
+    await signInAs(DEMO.pilot);
+    expect((await call(board.GET as never)).status).toBe(403);
+  });
+
+  it("shows the demo's next morning in switch-on order, with a short and an unplanned departure", async () => {
+    await signInAs(DEMO.operator);
+    const r = await call(board.GET as never);
+    expect(r.status).toBe(200);
+    const plans = r.body.plans as { status: string; switchOnAt: string | null; departAt: string; oilAtDepartureC: number; readyC: number; aircraft: { registration: string } }[];
+    expect(plans.length).toBeGreaterThanOrEqual(5);
+    const keys = plans.map((p) => Date.parse(p.switchOnAt ?? p.departAt));
+    expect([...keys].sort((a, b) => a - b)).toEqual(keys);
+    const statuses = new Set(plans.map((p) => p.status));
+    expect(statuses.has('short')).toBe(true);
+    expect(statuses.has('unplanned')).toBe(true);
+    // Every plan that warms the engine meets the ready temperature when re-simulated.
+    for (const p of plans.filter((x) => x.status === 'warming')) expect(p.oilAtDepartureC).toBeGreaterThanOrEqual(p.readyC - 1e-3);
+    // Only this organization's aircraft.
+    expect(plans.map((p) => p.aircraft.registration)).not.toContain('Q-RIDGE');
+  });
+
+  it('gives the Soak forecast with heater bands for a departure, and an operator confirms the plan', async () => {
+    await signInAs(DEMO.operator);
+    const list = (await call(board.GET as never)).body.plans as { departureId: number; status: string; heaterOn: unknown[] }[];
+    const warming = list.find((p) => p.status === 'warming' && p.heaterOn.length)!;
+    expect(warming).toBeTruthy();
+    const d = await call(detail.GET as never, { params: { id: String(warming.departureId) } });
+    expect(d.status).toBe(200);
+    expect(d.body.series.length).toBeGreaterThan(20);
+    const c = await call(confirm.POST as never, { method: 'POST', params: { id: String(warming.departureId) } });
+    expect(c.status).toBe(200);
+    const again = (await call(board.GET as never)).body.plans.find((p: { departureId: number }) => p.departureId === warming.departureId);
+    expect(again.confirmed?.by).toBeTruthy();
+  });
+
+  it("a pilot sees their own plans, not another pilot's departure (404), and cannot confirm (403)", async () => {
+    await signInAs(DEMO.operator);
+    const all = (await call(board.GET as never)).body.plans as { departureId: number; pilot: { name: string } }[];
+    const me = await signInAs(DEMO.pilot);
+    const own = await call(mine.GET as never);
+    expect(own.status).toBe(200);
+    expect(own.body.plans.every((p: { pilot: { id: number } }) => p.pilot.id === me.id)).toBe(true);
+    const other = all.find((p) => p.pilot.name !== me.name)!;
+    expect((await call(detail.GET as never, { params: { id: String(other.departureId) } })).status).toBe(404);
+    expect((await call(confirm.POST as never, { method: 'POST', params: { id: String(other.departureId) } })).status).toBe(403);
+  });
+
+  it("another organization's departure is 404", async () => {
+    await signInAs(DEMO.operator);
+    const id = (await call(board.GET as never)).body.plans[0].departureId;
+    await signInAs(DEMO.otherManager);
+    expect((await call(detail.GET as never, { params: { id: String(id) } })).status).toBe(404);
+  });
+});
