@@ -10,6 +10,8 @@ import { Conflict, Invalid, NotFound } from '@/lib/api/errors';
 import { aircraftDefaultsFor } from '@/lib/seed/defaults';
 import {
   classDefaults,
+  ENGINE_CLASSES,
+  ENGINE_CLASS_IDS,
   HEATER_KINDS,
   type AircraftCreate,
   type AircraftUpdate,
@@ -374,5 +376,24 @@ export async function archiveAircraft({ orgId, aircraftId, now = new Date() }: {
       { where: { aircraftId: a.id, organizationId: orgId, cancelledAt: null, departAt: { [Op.gt]: now } }, transaction },
     );
     return { archived: true as const, cancelledDepartures: cancelled, aircraft: await getAircraft({ orgId, aircraftId: a.id, transaction }) };
+  });
+}
+
+export interface EngineClassOption {
+  id: string;
+  label: string;
+  oilQuantityL: number;
+  readyC: number;
+  shutdownOilC: number;
+  heaters: { kind: string; powerW: number; node: 'oil' | 'engine' }[];
+  thermal: ThermalParams;
+}
+
+/** The engine classes with the values a new profile starts from (for the form). */
+export function engineClassOptions(): EngineClassOption[] {
+  return ENGINE_CLASS_IDS.map((id) => {
+    const p = ENGINE_CLASSES[id];
+    const d = aircraftDefaultsFor(id);
+    return { id, label: p.label, oilQuantityL: d.oilQuantityL, readyC: p.readyC, shutdownOilC: p.shutdownOilC, heaters: p.heaters.map((h) => ({ ...h })), thermal: structuredClone(d.thermal) };
   });
 }
