@@ -16,6 +16,7 @@ const MAX_SPAN_MS = 400 * 24 * HOUR_MS;
 
 export interface TariffRecord extends TariffShape {
   airfieldId: number;
+  airfieldName: string;
   /** The airfield's zone: the schedule's hours are local hours there. */
   timeZone: string;
   source: 'stored' | 'default';
@@ -37,11 +38,11 @@ async function airfieldOf({ orgId, airfieldId }: { orgId: number; airfieldId: nu
   return af;
 }
 
-function record(airfieldId: number, timeZone: string, t: Tariff | null): TariffRecord {
-  if (!t) return { airfieldId, timeZone, ...structuredClone(DEFAULT_TARIFF), source: 'default', updatedAt: null };
+function record(af: { id: number; name: string; timeZone: string }, t: Tariff | null): TariffRecord {
+  const base = { airfieldId: af.id, airfieldName: af.name, timeZone: af.timeZone };
+  if (!t) return { ...base, ...structuredClone(DEFAULT_TARIFF), source: 'default', updatedAt: null };
   return {
-    airfieldId,
-    timeZone,
+    ...base,
     currency: t.currency,
     periods: t.periods,
     weekdaySchedule: t.weekdaySchedule,
@@ -55,7 +56,7 @@ function record(airfieldId: number, timeZone: string, t: Tariff | null): TariffR
 export async function getTariff({ orgId, airfieldId }: { orgId: number; airfieldId: number }): Promise<TariffRecord> {
   const af = await airfieldOf({ orgId, airfieldId });
   const t = await Tariff.findOne({ where: { airfieldId: af.id, organizationId: orgId } });
-  return record(af.id, af.timeZone, t);
+  return record(af, t);
 }
 
 /** Tariffs of several airfields at once (default where none is stored), by airfield id. */
@@ -67,7 +68,7 @@ export async function tariffsFor({ orgId, airfieldIds }: { orgId: number; airfie
     Airfield.findAll({ where: { id: ids, organizationId: orgId } }),
     Tariff.findAll({ where: { airfieldId: ids, organizationId: orgId } }),
   ]);
-  return new Map(fields.map((f) => [f.id, record(f.id, f.timeZone, rows.find((r) => r.airfieldId === f.id) ?? null)]));
+  return new Map(fields.map((f) => [f.id, record(f, rows.find((r) => r.airfieldId === f.id) ?? null)]));
 }
 
 /** Stores (or replaces) the airfield's tariff. */
@@ -82,7 +83,7 @@ export async function putTariff({ orgId, airfieldId, input }: { orgId: number; a
     t.changed('weekdaySchedule', true);
     t.changed('weekendSchedule', true);
     await t.save({ transaction });
-    return record(af.id, af.timeZone, t);
+    return record(af, t);
   });
 }
 
@@ -90,7 +91,7 @@ export async function putTariff({ orgId, airfieldId, input }: { orgId: number; a
 export async function clearTariff({ orgId, airfieldId }: { orgId: number; airfieldId: number }): Promise<TariffRecord> {
   const af = await airfieldOf({ orgId, airfieldId });
   await Tariff.destroy({ where: { airfieldId: af.id, organizationId: orgId } });
-  return record(af.id, af.timeZone, null);
+  return record(af, null);
 }
 
 /**

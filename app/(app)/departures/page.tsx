@@ -1,15 +1,66 @@
 import type { Metadata } from 'next';
-import { EmptyState, PageHeader } from '@/components/ui/primitives';
+import { PageHeader } from '@/components/ui/primitives';
+import { BookingForm, type BookableAircraft } from '@/components/departures/BookingForm';
+import { DepartureList } from '@/components/departures/DepartureList';
 import { pageUser } from '@/lib/auth/page';
+import { can } from '@/lib/auth/permissions';
+import { aircraftIdsFlownBy, listAircraft, listPilotChoices, type AircraftRecord } from '@/lib/data/aircraft';
+import { listDepartures } from '@/lib/data/departures';
 
 export const metadata: Metadata = { title: 'Departures' };
 
-export default async function Page() {
-  await pageUser('departures:book-own');
+const HOUR_MS = 3_600_000;
+
+function bookable(a: AircraftRecord): BookableAircraft[] {
+  if (!a.airfield || !a.shelter) return [];
+  return [
+    {
+      id: a.id,
+      registration: a.registration,
+      typeLabel: a.typeLabel,
+      airfield: { id: a.airfield.id, name: a.airfield.name, timeZone: a.airfield.timeZone },
+      shelterName: a.shelter.name,
+      classReadyC: a.classDefaults.readyC,
+      heaterW: a.heaters.reduce((s, h) => s + h.powerW, 0),
+    },
+  ];
+}
+
+export default async function Page({ searchParams }: { searchParams: Promise<{ aircraft?: string }> }) {
+  const user = await pageUser('departures:book-own');
+  const { aircraft: pre } = await searchParams;
+  const bookAny = can(user.role, 'departures:book-any');
+  const nowMs = Date.now();
+  const [fleet, flies, pilots, departures] = await Promise.all([
+    listAircraft({ orgId: user.orgId }),
+    bookAny ? Promise.resolve(null) : aircraftIdsFlownBy({ orgId: user.orgId, userId: user.id }),
+    bookAny ? listPilotChoices({ orgId: user.orgId }) : Promise.resolve([]),
+    // The same window and scope as GET /api/departures, so SWR takes over seamlessly.
+    listDepartures({ orgId: user.orgId, fromMs: nowMs - 6 * HOUR_MS, toMs: nowMs + 14 * 24 * HOUR_MS, pilotId: bookAny ? undefined : user.id }),
+  ]);
+  const choices = fleet.filter((a) => !flies || flies.includes(a.id)).flatMap(bookable);
+  const pilotChoices = bookAny ? [{ id: user.id, name: user.name }, ...pilots.filter((p) => p.id !== user.id)] : undefined;
   return (
     <>
-      <PageHeader title="Departures" subtitle="Your first flights of the day and whether the oil will be warm enough." />
-      <EmptyState title="No departures booked">Book the first flight of a day and Thawline will show the predicted oil temperature at departure.</EmptyState>
+      <PageHeader
+        title="Departures"
+        subtitle={bookAny ? 'Every booked first flight of the day, and booking for any pilot.' : 'Your first flights of the day and whether the oil will be warm enough.'}
+      />
+      <div className="grid gap-5 lg:grid-cols-[22rem_1fr] lg:items-start">
+        <div className="lg:sticky lg:top-4">
+          {choices.length ? (
+            <BookingForm aircraft={choices} pilots={pilotChoices} selfId={user.id} tempUnit={user.tempUnit} nowMs={nowMs} preselect={pre ? Number(pre) : undefined} />
+          ) : (
+            <p className="rounded-2xl border border-dashed border-slate-300 p-5 text-sm text-slate-600 dark:border-slate-700 dark:text-slate-400">
+              You are not listed as a pilot of any aircraft yet. Ask an operator to add you to the aircraft you fly.
+            </p>
+          )}
+        </div>
+        <section aria-labelledby="upcoming-h" className="min-w-0">
+          <h2 id="upcoming-h" className="mb-3 text-lg font-semibold">{bookAny ? 'Upcoming departures' : 'Your upcoming departures'}</h2>
+          <DepartureList initial={departures} tempUnit={user.tempUnit} selfId={user.id} manageAll={bookAny} nowMs={nowMs} />
+        </section>
+      </div>
     </>
   );
 }
