@@ -31,13 +31,19 @@ function num(min: number, max: number, what = 'a number') {
 const positive = (max: number) => num(0, max).refine((v) => v > 0, 'Must be greater than 0.');
 const temp = num(-100, 250, 'a temperature in °C');
 
-const iso = z.iso.datetime({
-  offset: true,
-  error: (iss) =>
-    iss.input === undefined
-      ? 'Required.'
-      : `Must be an ISO-8601 date-time with seconds and a zone, e.g. "2025-01-15T18:00:00Z" (got ${describe(iss.input)}).`,
-});
+/** ISO-8601 date-time with a zone: minutes or seconds (fractions allowed), "Z" or ±hh:mm / ±hhmm. */
+const ISO_DATE_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:?\d{2})$/;
+function isIsoDateTime(v: string): boolean {
+  if (!ISO_DATE_TIME.test(v) || !Number.isFinite(Date.parse(v))) return false;
+  const [y, m, d] = v.slice(0, 10).split('-').map(Number);
+  const day = new Date(Date.UTC(y, m - 1, d));
+  return day.getUTCMonth() === m - 1 && day.getUTCDate() === d; // no 30 February
+}
+const iso = z
+  .string({ error: (iss) => (iss.input === undefined ? 'Required.' : `Must be an ISO-8601 date-time string, not ${describe(iss.input)}.`) })
+  .refine(isIsoDateTime, {
+    error: (iss) => `Must be an ISO-8601 date-time with a zone, e.g. "2025-01-15T18:00:00Z" (got ${describe(iss.input)}).`,
+  });
 
 const nodeName = z.enum(['oil', 'engine'], {
   error: (iss) => (iss.input === undefined ? 'Required.' : `Unknown node ${describe(iss.input)}: must be "oil" or "engine".`),
