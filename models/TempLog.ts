@@ -40,7 +40,7 @@ export class TempLog extends Model<InferAttributes<TempLog>, InferCreationAttrib
   /** Whether the engine cover was on while the log was taken (the fit's losses are then scaled back). */
   declare coverOn: CreationOptional<boolean>;
   /** The last fit's result (lib/fit FitReport), null until fitted. */
-  declare fit: CreationOptional<unknown | null>;
+  declare fit: CreationOptional<object | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }

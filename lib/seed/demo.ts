@@ -7,6 +7,7 @@ import type { ShelterKind } from '@/models/Shelter';
 import type { Role } from '@/lib/auth/permissions';
 import { aircraftDefaultsFor, shelterDefaultsFor } from './defaults';
 import { seedPlanning } from './planning';
+import { seedOilLog } from './oil';
 
 // The invented demo scenario (data/demo/scenario.json) written into an empty database in one transaction.
 const scenarioSchema = z.object({
@@ -118,6 +119,7 @@ export async function seedDemo(now = new Date()): Promise<string> {
       }
     }
     await seedPlanning(ctx);
+    await seedOilLog(ctx);
     const counts = scenario.organizations.map((o) => `${o.name}: ${o.users.length} users, ${o.airfields.length} airfields, ${o.aircraft.length} aircraft`);
     return counts.join('; ');
   });
