@@ -2,8 +2,8 @@ import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAtt
 import type { Aircraft } from './Aircraft';
 import type { Organization } from './Organization';
 
-export const HEATER_CONTROLS = ['timer', 'relay', 'manual'] as const;
-export type HeaterControl = (typeof HEATER_CONTROLS)[number];
+import type { HeaterControl } from '@/lib/heater-controls';
+export { HEATER_CONTROLS, type HeaterControl } from '@/lib/heater-controls';
 
 /** A preheater fitted to an aircraft: its power goes to one node (oil or engine mass). */
 export class Heater extends Model<InferAttributes<Heater>, InferCreationAttributes<Heater>> {

@@ -2,7 +2,7 @@
 // form, the route handlers and any CLI. Everything is stored in SI and °C / litres; the form converts
 // from the user's units before it sends. Every issue carries its field's path.
 import { z } from 'zod';
-import { HEATER_CONTROLS, type HeaterControl } from '@/models/Heater';
+import { HEATER_CONTROLS, type HeaterControl } from '@/lib/heater-controls';
 import { ENGINE_CLASSES, ENGINE_CLASS_IDS, HEATER_KINDS, type EngineClassId, type HeaterKind } from '@/lib/thermal/presets';
 
 export { ENGINE_CLASSES, ENGINE_CLASS_IDS, HEATER_KINDS, HEATER_CONTROLS, type EngineClassId, type HeaterKind, type HeaterControl };
