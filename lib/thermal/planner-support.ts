@@ -32,6 +32,13 @@ export interface OilResponseAt {
    * events are held where they are (the local derivative).
    */
   uniformShiftKPerK: number;
+  /**
+   * The co-state at the start of each slot, restricted to the heated nodes (oil, engine — see
+   * `heatedNodes`): row k holds ∂oil(atMs)/∂(heat-raised temperature of each heated node at slot k's
+   * start), so oil(atMs) = base + coState_kᵀ·z(slot k start) + the heat of slot k onwards. Zero for
+   * slots starting at or after atMs. Flat, K × heatedNodes.length.
+   */
+  coStateAtSlotStart: Float64Array;
 }
 
 /** Step length in seconds rounded to the microsecond, exactly as the walk does, so cached exponentials are shared. */
@@ -132,10 +139,21 @@ export function oilResponses(
   const invC = 1 / plan.caps[ni];
   const lam = new Float64Array(n);
   const tmp = new Float64Array(n);
+  const heated = plan.iE >= 0 ? [plan.iO, plan.iE] : [plan.iO];
+  const H = heated.length;
+  // Steps that open a slot, per step index.
+  const opens: number[][] = steps.map(() => []);
+  const startIndex = new Map<number, number>();
+  steps.forEach((s, i) => startIndex.set(s.ta, i));
+  for (let k = 0; k < K; k++) {
+    const i = to[k] > from[k] ? startIndex.get(from[k]) : undefined;
+    if (i !== undefined) opens[i].push(k);
+  }
 
   return times.map((T) => {
     const perWattK = new Float64Array(K);
     const perOutsideK = new Float64Array(out.length);
+    const coStateAtSlotStart = new Float64Array(K * H);
     lam.fill(0);
     lam[plan.iO] = 1;
     const endI = T <= plan.startMs ? -1 : endIndex.get(T)!;
@@ -176,6 +194,7 @@ export function oilResponses(
       }
       lam.set(tmp);
       if (s.ta === s.seg.t0 && s.seg.pin === s.seg.pin) lam[plan.iS] = 0;
+      for (const k of opens[i]) for (let h = 0; h < H; h++) coStateAtSlotStart[k * H + h] = lam[heated[h]];
     }
     let uniform = 0;
     for (let i = 0; i < out.length; i++) uniform += perOutsideK[i];
@@ -185,7 +204,7 @@ export function oilResponses(
       for (const [i, wi] of w) perOutsideK[i] += lam[plan.iS] * wi;
       uniform += lam[plan.iS];
     }
-    return { atMs: T, baseOilC: baseAt.get(T)!, perWattK, perOutsideK, uniformShiftKPerK: uniform };
+    return { atMs: T, baseOilC: baseAt.get(T)!, perWattK, perOutsideK, uniformShiftKPerK: uniform, coStateAtSlotStart };
   });
 }
 
@@ -201,4 +220,74 @@ function outsideWeights(pts: SoakModel['outside'], t: number): [number, number][
     [i, 1 - u],
     [i + 1, u],
   ];
+}
+
+/** The heated nodes' state indices as the planner sees them: oil, then engine when present. */
+export function heatedNodes(model: SoakModel): NodeName[] {
+  return model.engine ? ['oil', 'engine'] : ['oil'];
+}
+
+export interface SlotTransitions {
+  /** The heated nodes, in order (oil first). */
+  nodes: NodeName[];
+  /**
+   * Per slot: z(end) = M·z(start) + x·g for the heat-raised temperatures z of the heated nodes
+   * (what the planned heat adds on top of the free run), x = 1 when the slot is on.
+   * M is H×H row-major; g is the rise at the slot end from the slot on at the heater's power.
+   */
+  M: Float64Array[];
+  g: Float64Array[];
+}
+
+/**
+ * Exact per-slot transitions of the heat the planner adds, for slots that tile an interval (each
+ * starts where the previous ends). The shelter never feels the engines, so the added heat lives on
+ * the oil and engine nodes alone.
+ */
+export function slotTransitions(model: SoakModel, opts: { node: NodeName; powerW: number; slots: readonly HeaterSlot[] }): SlotTransitions {
+  const plan = compile(model);
+  const ni = nodeIndex(plan, opts.node);
+  if (ni < 0) throw new Error(`the model has no "${opts.node}" node`);
+  const n = plan.n;
+  const heated = plan.iE >= 0 ? [plan.iO, plan.iE] : [plan.iO];
+  const H = heated.length;
+  const gain = opts.powerW / plan.caps[ni];
+  const M: Float64Array[] = [];
+  const g: Float64Array[] = [];
+  let si = 0;
+  const segs = plan.segs;
+  const m2 = new Float64Array(H * H);
+  const g2 = new Float64Array(H);
+  for (const slot of opts.slots) {
+    const a = Math.min(Math.max(slot.fromMs, plan.startMs), plan.endMs);
+    const b = Math.min(Math.max(slot.toMs, plan.startMs), plan.endMs);
+    const Mk = new Float64Array(H * H);
+    for (let h = 0; h < H; h++) Mk[h * H + h] = 1;
+    const gk = new Float64Array(H);
+    let t = a;
+    if (segs[si].t0 > t) si = 0;
+    while (t < b) {
+      while (si + 1 < segs.length && segs[si].t1 <= t) si++;
+      const seg = segs[si];
+      const tn = Math.min(seg.t1, b);
+      const d = discretise(seg.sys, stepSeconds(t, tn));
+      // Φ restricted to the heated nodes, applied to (M, g); then the slot's own heat.
+      m2.fill(0);
+      g2.fill(0);
+      for (let r = 0; r < H; r++) {
+        for (let c = 0; c < H; c++) {
+          const phi = d.phi[heated[r] * n + heated[c]];
+          for (let q = 0; q < H; q++) m2[r * H + q] += phi * Mk[c * H + q];
+          g2[r] += phi * gk[c];
+        }
+        g2[r] += d.gamma0[heated[r] * n + ni] * gain;
+      }
+      Mk.set(m2);
+      gk.set(g2);
+      t = tn;
+    }
+    M.push(Mk);
+    g.push(gk);
+  }
+  return { nodes: heated.map((i) => (i === plan.iO ? 'oil' : 'engine')), M, g };
 }

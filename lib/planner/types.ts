@@ -1,0 +1,160 @@
+// Plain data in and out of the heat planner. Times are epoch milliseconds (UTC instants);
+// temperatures °C; powers W; energy kWh; money in the tariff's currency. No Date objects, no clock.
+import type { NodeName, SoakModel } from '@/lib/thermal';
+
+export type PlanMode = 'least-cost' | 'single-start';
+
+/**
+ * ready: no heat needed; warming: the plan meets the ready temperature (and the floor); short: it
+ * cannot, even with the heater on throughout. (The lead's records add 'unplanned' for aircraft with
+ * no heater.)
+ */
+export type PlanStatus = 'ready' | 'warming' | 'short';
+
+/** One period of a time-of-use tariff: the price holds over [fromMs, toMs). */
+export interface TariffPeriod {
+  fromMs: number;
+  toMs: number;
+  pricePerKWh: number;
+}
+
+export interface PlanRequest {
+  /** The free run from the last shutdown: no planned heaters (any heaters in it are kept as a fixed part of the run). */
+  model: SoakModel;
+  departureMs: number;
+  readyC: number;
+  /** The overnight floor: the oil must not fall below it from the earliest switch-on to departure. */
+  floorC?: number;
+  heater: { node: NodeName; powerW: number };
+  /** Time-of-use periods covering [earliest switch-on, departure]; without them the price is flat. */
+  tariff?: readonly TariffPeriod[];
+  /** A flat price, used when no tariff is given (cost is then reported); without either, cost is not reported. */
+  flatPricePerKWh?: number;
+  /** The heater control's granularity, minutes (default 5). Slots end at departure and step back from there. */
+  slotMinutes?: number;
+  /** Default: the later of the model start (the shutdown) and `nowMs`. */
+  earliestSwitchOnMs?: number;
+  mode: PlanMode;
+  /** The caller's "now" (the planner never reads a clock). */
+  nowMs?: number;
+  /** When the forecast was issued, for its error's lead time (default `nowMs`, else the model start). */
+  forecastIssuedAtMs?: number;
+  /** The "on N hours before departure" rules to compare against (default 1, 2, 3, 4). */
+  baselineHours?: readonly number[];
+  /**
+   * Forecast error model. Default: one uniform shift of the whole outside forecast with σ at the
+   * departure's lead time. With `correlationHours`: per-point sensitivities, σ at each point's lead
+   * time, errors correlated as exp(−|Δt| / correlationHours).
+   */
+  uncertainty?: { correlationHours?: number };
+  /** Plan for this chance of being ready instead of the forecast's best guess (raises the target by z·σ). */
+  targetProbability?: number;
+  /** Branch-and-bound node limit for the slot choice (default 200 000). */
+  maxNodes?: number;
+}
+
+export interface Interval {
+  fromMs: number;
+  toMs: number;
+}
+
+export interface Baseline {
+  rule: 'all-night' | 'hours-before';
+  /** For 'hours-before'. */
+  hours?: number;
+  fromMs: number;
+  toMs: number;
+  /** The rule wanted an earlier start than the earliest switch-on: it starts there instead. */
+  clipped: boolean;
+  energyKWh: number;
+  cost?: number;
+  /** Re-simulated through lib/thermal. */
+  oilAtDepartureC: number;
+  meetsReady: boolean;
+  meetsFloor?: boolean;
+  /** What the plan saves against this rule (negative: the rule is cheaper, usually because it falls short). */
+  saved: { energyKWh: number; cost?: number };
+}
+
+export interface FloorReport {
+  floorC: number;
+  /** The floor is enforced from here: the earliest switch-on, or when full heat from there restores it. */
+  enforcedFromMs: number;
+  /** The free curve is below the floor before heat can act. */
+  breachBeforeHeat?: { fromMs: number; oilAtSwitchOnC: number };
+  /** The plan's lowest oil over [enforcedFrom, departure], re-simulated (continuous). */
+  minOilC: number;
+  minAtMs: number;
+  met: boolean;
+}
+
+export interface Uncertainty {
+  method: 'uniform' | 'per-hour';
+  leadHours: number;
+  /** σ of the 2 m outside temperature (uniform: at the departure's lead time), K. */
+  sigmaOutsideK: number;
+  /** ∂oil(departure)/∂(uniform shift of the outside forecast), K/K. */
+  sensitivityKPerK: number;
+  /** σ of the oil at departure, K. */
+  sigmaOilK: number;
+  correlationHours?: number;
+}
+
+export interface Optimality {
+  method: 'branch-and-bound' | 'label-dp' | 'lp-rounding';
+  /**
+   * A lower bound from the continuous relaxation (slots may be fractionally on), in the
+   * objective's units (cost, or kWh when no price is given): with no floor it is the relaxation's
+   * optimum; with a floor, the departure-only relaxation (the floor can only add cost).
+   */
+  lpBound: number;
+  /** (plan − lpBound) / lpBound: what the slot granularity costs. */
+  gapToLpBound: number;
+  /** Proven bound on (plan − best on-off plan) / plan. */
+  certifiedGap: number;
+  nodes?: number;
+}
+
+export interface PlanResult {
+  mode: PlanMode;
+  status: PlanStatus;
+  departureMs: number;
+  readyC: number;
+  /** The temperature the plan aims for at departure: readyC, raised for targetProbability. */
+  targetC: number;
+  earliestSwitchOnMs: number;
+  slotMinutes: number;
+  heaterOn: Interval[];
+  switchOnAtMs?: number;
+  /** single-start: the exact latest switch-on for the ready temperature (continuous, not on the slot grid). */
+  latestSwitchOnAtMs?: number;
+  /** The plan re-simulated through lib/thermal. */
+  oilAtDepartureC: number;
+  /** The affine prediction the optimiser used (agrees with the re-simulation to rounding). */
+  predictedOilAtDepartureC: number;
+  /** With no heat. */
+  freeOilAtDepartureC: number;
+  energyKWh: number;
+  cost?: number;
+  floor?: FloorReport;
+  fix?: {
+    /** Heater on from the earliest switch-on and kept on: the first time the oil reaches ready (null: not within 48 h). */
+    readyAtMs: number | null;
+    /** The heater power that would meet the ready temperature (and floor) at departure with the heater on throughout. */
+    powerNeededW: number | null;
+  };
+  baselines: { allNight: Baseline; hoursBefore: Baseline[] };
+  probabilityReady: number;
+  uncertainty: Uncertainty;
+  optimality?: Optimality;
+}
+
+/** A request the planner cannot work with; `field` names the request field (dotted path). */
+export class PlanInputError extends Error {
+  constructor(
+    public field: string,
+    message: string,
+  ) {
+    super(message);
+  }
+}
