@@ -54,6 +54,6 @@ export function initAircraft(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'aircraft' },
+    { sequelize, modelName: 'Aircraft', tableName: 'aircraft' },
   );
 }

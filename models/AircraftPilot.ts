@@ -14,6 +14,6 @@ export function initAircraftPilot(sequelize: Sequelize) {
       aircraftId: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true },
       userId: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true },
     },
-    { sequelize, tableName: 'aircraft_pilots', timestamps: false },
+    { sequelize, modelName: 'AircraftPilot', tableName: 'aircraft_pilots', timestamps: false },
   );
 }

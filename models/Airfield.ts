@@ -32,6 +32,6 @@ export function initAirfield(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'airfields' },
+    { sequelize, modelName: 'Airfield', tableName: 'airfields' },
   );
 }

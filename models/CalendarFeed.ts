@@ -28,6 +28,6 @@ export function initCalendarFeed(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'calendar_feeds' },
+    { sequelize, modelName: 'CalendarFeed', tableName: 'calendar_feeds' },
   );
 }

@@ -35,6 +35,6 @@ export function initDeparture(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'departures' },
+    { sequelize, modelName: 'Departure', tableName: 'departures' },
   );
 }

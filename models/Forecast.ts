@@ -50,6 +50,6 @@ export function initForecast(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'forecasts' },
+    { sequelize, modelName: 'Forecast', tableName: 'forecasts' },
   );
 }

@@ -50,6 +50,6 @@ export function initHeatPlan(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'heat_plans' },
+    { sequelize, modelName: 'HeatPlan', tableName: 'heat_plans' },
   );
 }

@@ -35,6 +35,6 @@ export function initHeater(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'heaters' },
+    { sequelize, modelName: 'Heater', tableName: 'heaters' },
   );
 }

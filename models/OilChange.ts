@@ -33,6 +33,6 @@ export function initOilChange(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'oil_changes' },
+    { sequelize, modelName: 'OilChange', tableName: 'oil_changes' },
   );
 }

@@ -42,6 +42,6 @@ export function initOilCheck(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'oil_checks' },
+    { sequelize, modelName: 'OilCheck', tableName: 'oil_checks' },
   );
 }

@@ -21,6 +21,6 @@ export function initOrganization(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'organizations' },
+    { sequelize, modelName: 'Organization', tableName: 'organizations' },
   );
 }

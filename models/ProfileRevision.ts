@@ -44,6 +44,6 @@ export function initProfileRevision(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'profile_revisions' },
+    { sequelize, modelName: 'ProfileRevision', tableName: 'profile_revisions' },
   );
 }

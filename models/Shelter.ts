@@ -43,6 +43,6 @@ export function initShelter(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'shelters' },
+    { sequelize, modelName: 'Shelter', tableName: 'shelters' },
   );
 }

@@ -37,6 +37,6 @@ export function initTariff(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'tariffs' },
+    { sequelize, modelName: 'Tariff', tableName: 'tariffs' },
   );
 }

@@ -34,6 +34,6 @@ export function initUser(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'users' },
+    { sequelize, modelName: 'User', tableName: 'users' },
   );
 }

@@ -35,8 +35,14 @@ export const authOptions: NextAuthOptions = {
         const address = clientAddress(req?.headers as Record<string, unknown> | undefined);
         const wait = await signInBlockedFor(email, address);
         if (wait > 0) throw new Error(`TooManyAttempts:${wait}`);
-        const { User } = db();
-        const user = await User.findOne({ where: { email } });
+        let user: Awaited<ReturnType<ReturnType<typeof db>['User']['findOne']>>;
+        try {
+          user = await db().User.findOne({ where: { email } });
+        } catch (err) {
+          // next-auth would put the error's message in the redirect URL: log it here, answer as a failed sign-in.
+          console.error('[thawline] sign-in lookup failed', err);
+          return null;
+        }
         const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
         if (!user || !ok || !user.active) {
           await recordFailedSignIn(email, address);
