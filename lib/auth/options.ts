@@ -4,6 +4,7 @@ import CredentialsProvider from 'next-auth/providers/credentials';
 import bcrypt from 'bcryptjs';
 import { env } from '@/lib/env';
 import { db } from '@/models';
+import type { User } from '@/models/User';
 import { signInSchema } from '@/lib/validation/auth';
 import { clearFailedSignIns, recordFailedSignIn, signInBlockedFor } from './limiter';
 import type { Role } from './permissions';
@@ -35,7 +36,7 @@ export const authOptions: NextAuthOptions = {
         const address = clientAddress(req?.headers as Record<string, unknown> | undefined);
         const wait = await signInBlockedFor(email, address);
         if (wait > 0) throw new Error(`TooManyAttempts:${wait}`);
-        let user: Awaited<ReturnType<ReturnType<typeof db>['User']['findOne']>>;
+        let user: User | null;
         try {
           user = await db().User.findOne({ where: { email } });
         } catch (err) {
