@@ -16,9 +16,16 @@ import { Tariff, initTariff } from './Tariff';
 import { Departure, initDeparture } from './Departure';
 import { HeatPlan, initHeatPlan } from './HeatPlan';
 import { CalendarFeed, initCalendarFeed } from './CalendarFeed';
+import { Alert, initAlert } from './Alert';
+import { AlertPreference, initAlertPreference } from './AlertPreference';
+import { OutboxMessage, initOutboxMessage } from './OutboxMessage';
+import { Token, initToken } from './Token';
+import { Lease, initLease } from './Lease';
+import { CapturedMail, initCapturedMail } from './CapturedMail';
 import { migrations } from './migrations';
 
 export { Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
+export { Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -43,6 +50,12 @@ export function db() {
     initProfileRevision(sequelize);
     initOilCheck(sequelize);
     initOilChange(sequelize);
+    initAlert(sequelize);
+    initAlertPreference(sequelize);
+    initOutboxMessage(sequelize);
+    initToken(sequelize);
+    initLease(sequelize);
+    initCapturedMail(sequelize);
 
     Organization.hasMany(User, { foreignKey: 'organizationId' });
     User.belongsTo(Organization, { foreignKey: 'organizationId' });
@@ -66,9 +79,13 @@ export function db() {
     ProfileRevision.belongsTo(User, { foreignKey: 'createdById', as: 'author' });
     OilCheck.belongsTo(User, { foreignKey: 'userId', as: 'author' });
     OilChange.belongsTo(User, { foreignKey: 'userId', as: 'author' });
+    Alert.belongsTo(User, { foreignKey: 'userId', as: 'recipient' });
+    OutboxMessage.belongsTo(Alert, { foreignKey: 'alertId', as: 'alert' });
+    AlertPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+    Token.belongsTo(User, { foreignKey: 'userId', as: 'user' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail };
 }
 
 export function migrator() {

@@ -3,6 +3,7 @@ import * as m001 from './001-foundation';
 import * as m002 from './002-forecasts';
 import * as m003 from './003-planning';
 import * as m004 from './004-logs-and-oil';
+import * as m005 from './005-alerts-mail';
 
 export interface Migration {
   name: string;
@@ -17,4 +18,5 @@ export const migrations: Migration[] = [
   { name: '002-forecasts', ...m002 },
   { name: '003-planning', ...m003 },
   { name: '004-logs-and-oil', ...m004 },
+  { name: '005-alerts-mail', ...m005 },
 ];
