@@ -8,3 +8,4 @@ export { normalCdf, normalQuantile, probabilityReady, oilUncertainty } from './p
 export { slotGrid, pricingOf, kWhOf, mergeIntervals, type Pricing } from './slots';
 export { withHeater, restartAt, oilMinimumBetween, oilAt } from './model';
 export * from './types';
+export { runPlan, toPlanRequest, toPlanJson, type PlanJson, type BaselineJson } from './contract';

@@ -1,0 +1,129 @@
+// The plan contract (CLI `npm run plan`, POST /api/v1/plans): the simulate contract without
+// `heaters` (the planner chooses them), plus `plan`. Every issue carries the path of its field
+// (e.g. ["plan", "heater", "node"]).
+import { z } from 'zod';
+import { simulationInputSchema } from './simulation';
+
+export const MAX_TARIFF_PERIODS = 1_000;
+export const MAX_PLAN_SLOTS = 2_000;
+
+/** A finite number in [min, max], with one clear message for NaN, Infinity and non-numbers. */
+function num(min: number, max: number, what = 'a number') {
+  return z
+    .number({
+      error: (iss) =>
+        iss.input === undefined
+          ? 'Required.'
+          : typeof iss.input === 'number' || iss.input === 'NaN' || iss.input === 'Infinity' || iss.input === '-Infinity'
+            ? `Must be a finite number, not ${String(iss.input)}.`
+            : `Must be ${what}, not ${JSON.stringify(iss.input) ?? typeof iss.input}.`,
+    })
+    .min(min, `Must be at least ${min}.`)
+    .max(max, `Must be at most ${max}.`);
+}
+
+const iso = z.iso.datetime({
+  offset: true,
+  error: (iss) =>
+    iss.input === undefined
+      ? 'Required.'
+      : `Must be an ISO-8601 date-time with seconds and a zone, e.g. "2025-01-16T07:30:00Z" (got ${JSON.stringify(iss.input) ?? typeof iss.input}).`,
+});
+const temp = num(-100, 250, 'a temperature in °C');
+const ms = (s: string) => Date.parse(s);
+
+const tariffPeriod = z.strictObject({ from: iso, to: iso, pricePerKWh: num(0, 1e4, 'a price per kWh') });
+
+export const planSchema = z.strictObject({
+  departure: iso,
+  readyC: temp,
+  heater: z.strictObject({
+    node: z.enum(['oil', 'engine'], {
+      error: (iss) => (iss.input === undefined ? 'Required.' : `Unknown node ${JSON.stringify(iss.input)}: must be "oil" or "engine".`),
+    }),
+    powerW: num(0, 1e6, 'a power in W').refine((v) => v > 0, 'Must be greater than 0.'),
+  }),
+  tariff: z
+    .array(tariffPeriod, { error: (iss) => (iss.input === undefined ? 'Required.' : 'Must be an array of { from, to, pricePerKWh } periods.') })
+    .min(1, 'Give at least one period, or leave the tariff out for a flat price.')
+    .max(MAX_TARIFF_PERIODS, `At most ${MAX_TARIFF_PERIODS} periods.`)
+    .optional(),
+  /** A flat price per kWh when there is no tariff: costs are then reported. */
+  flatPricePerKWh: num(0, 1e4, 'a price per kWh').optional(),
+  floorC: temp.optional(),
+  mode: z.enum(['least-cost', 'single-start'], {
+    error: (iss) => (iss.input === undefined ? 'Required: "least-cost" or "single-start".' : `Must be "least-cost" or "single-start", not ${JSON.stringify(iss.input)}.`),
+  }),
+  slotMinutes: num(1, 240, 'a number of minutes').optional(),
+  earliestSwitchOn: iso.optional(),
+  now: iso.optional(),
+  /** When the forecast was issued (default: now, else start), for its error's lead time. */
+  forecastIssuedAt: iso.optional(),
+  /** The "on N hours before departure" rules to compare against (default 1, 2, 3, 4). */
+  baselineHours: z.array(num(0.1, 168, 'a number of hours')).max(24, 'At most 24 rules.').optional(),
+  /** Per-hour forecast errors correlated over this many hours (default: one uniform shift). */
+  correlationHours: num(0, 1000, 'a number of hours').optional(),
+  /** Plan for this chance of being ready (0.5–0.999) instead of the forecast's best guess. */
+  targetProbability: num(0.5, 0.999, 'a probability').optional(),
+}, {
+  error: (iss) =>
+    iss.input === undefined ? 'Required: { departure, readyC, heater: { node, powerW }, mode }.' : 'Must be an object { departure, readyC, heater, mode, … }.',
+});
+
+export const planInputSchema = simulationInputSchema
+  .safeExtend({
+    heaters: z
+      .undefined({ error: 'A plan request takes no "heaters": the planner chooses when the heater runs (give it under plan.heater).' })
+      .optional(),
+    plan: planSchema,
+  })
+  .superRefine((v, ctx) => {
+    const start = ms(v.start);
+    const end = ms(v.end);
+    const p = v.plan;
+    const dep = ms(p.departure);
+    const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: 'custom', path: ['plan', ...path], message });
+    if (dep < start || dep > end) issue(['departure'], `Must lie within the run, from start (${v.start}) to end (${v.end}).`);
+    if (p.heater.node === 'engine' && !v.engine.nodes.some((n) => n.name === 'engine')) {
+      issue(['heater', 'node'], 'No "engine" node in engine.nodes: the one-node form heats "oil".');
+    }
+    const now = p.now !== undefined ? ms(p.now) : undefined;
+    if (now !== undefined && now > dep) issue(['now'], 'Must not be after departure: there is nothing left to plan.');
+    let earliest = Math.max(start, now ?? start);
+    if (p.earliestSwitchOn !== undefined) {
+      earliest = ms(p.earliestSwitchOn);
+      if (earliest < start || earliest > dep) issue(['earliestSwitchOn'], 'Must lie between the run start and departure.');
+    }
+    const slotMin = p.slotMinutes ?? 5;
+    const slots = Math.ceil((dep - earliest) / (slotMin * 60_000));
+    if (slots > MAX_PLAN_SLOTS) {
+      issue(['slotMinutes'], `Gives ${slots.toLocaleString('en-US')} slots from the earliest switch-on to departure; at most ${MAX_PLAN_SLOTS.toLocaleString('en-US')}: raise slotMinutes.`);
+    }
+    if (p.tariff) {
+      const order = p.tariff.map((t, i) => ({ i, from: ms(t.from), to: ms(t.to) }));
+      order.forEach((t) => {
+        if (!(t.to > t.from)) issue(['tariff', t.i, 'to'], 'Must be after from.');
+      });
+      order.sort((a, b) => a.from - b.from);
+      for (let k = 1; k < order.length; k++) {
+        if (order[k].from < order[k - 1].to) {
+          issue(['tariff', order[k].i, 'from'], `Overlaps tariff period ${order[k - 1].i}.`);
+          return;
+        }
+      }
+      // Every moment from the earliest switch-on to departure needs a price.
+      let covered = earliest;
+      for (const t of order) {
+        if (t.from > covered && covered < dep) break;
+        covered = Math.max(covered, t.to);
+      }
+      if (covered < dep && dep > earliest) {
+        issue(['tariff'], `Must cover the earliest switch-on to departure; nothing covers ${new Date(covered).toISOString()}.`);
+      }
+    }
+  });
+
+/** The contract as received. */
+export type PlanHttpRequest = z.input<typeof planInputSchema>;
+/** The contract after validation. */
+export type PlanInput = z.output<typeof planInputSchema>;
