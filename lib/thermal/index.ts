@@ -17,6 +17,19 @@
 // x ← Φ·x + Γ0·w0 + Γ1·w1 from one matrix exponential (first-order hold, mathjs `expm`), cached
 // per step length. Output times only cut steps, never change inputs, so results do not depend on
 // the output interval beyond rounding.
+//
+// What to call:
+//   simulate(model, { outputEveryMinutes })  the Soak forecast as typed arrays (the hot path)
+//   stateAt / statesAt                       exact temperatures at chosen instants
+//   oilMinimum, firstOilCrossing             lowest oil and when; first time oil reaches a level
+//   runSimulation(parsed)                    the simulate contract (CLI and POST /api/v1/simulations)
+// For the planner (the model is linear, so oil(T) is affine in each heater slot's power):
+//   heaterResponse(model, { node, slots, atMs })
+//       → baseOilC (the model as given; pass it without heaters for the free response),
+//         perWattK[k] (K per W in slot k, at T) and slotEnds (the same at every slot end, for an
+//         overnight floor): oil(T) = baseOilC + Σ perWattK[k]·P_k, exactly.
+//   outsideSensitivity(model, atMs)          K of oil at T per K at each outside point (forecast error)
+// Presets (presets.ts), frost point (frost.ts) and oil volume (oil.ts) are re-exported here.
 import { firstCrossingOf, minimumOf } from './analysis';
 import { sampleStates } from './integrate';
 import { compile } from './plan';

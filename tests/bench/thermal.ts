@@ -184,6 +184,29 @@ function analyticErrors(tol: number): { exact: number; ode: number } {
   return { exact, ode };
 }
 
+/** This machine's floor: the same number of 3-state steps as a bare loop of scalar multiply-adds. */
+function bareLoop(steps: number): number {
+  const out = new Float64Array(4321 * 3);
+  let x0 = 1;
+  let x1 = 2;
+  let x2 = 3;
+  const t0 = performance.now();
+  for (let s = 0; s < steps; s++) {
+    const u = -5 + 1e-6 * s;
+    const y0 = 0.99 * x0 + 0.001 * x1 + 0.002 * x2 + 0.004 * u + 0.1;
+    const y1 = 0.001 * x0 + 0.98 * x1 + 0.003 * x2 + 0.004 * u + 0.1;
+    x2 = 0.0 * x0 + 0.01 * x1 + 0.97 * x2 + 0.004 * u + 0.1;
+    x0 = y0;
+    x1 = y1;
+    const j = (s % 4321) * 3;
+    out[j] = x0;
+    out[j + 1] = x1;
+    out[j + 2] = x2;
+  }
+  const ms = performance.now() - t0;
+  return out[7] === 12345 ? -1 : ms;
+}
+
 export async function benchThermal(): Promise<string[]> {
   const lines: string[] = [];
   const models = fleet();
@@ -196,6 +219,9 @@ export async function benchThermal(): Promise<string[]> {
   lines.push(`soak model, exact (expm + cached Float64 steps): ${AIRCRAFT} aircraft × ${HOURS} h at 1-min output`);
   lines.push(`  cold: ${cold.ms.toFixed(1)} ms, ${nsCold.toFixed(1)} ns/node-step, ${e1 - e0} matrix exponentials`);
   lines.push(`  warm: ${warm.ms.toFixed(1)} ms, ${nsWarm.toFixed(1)} ns/node-step (${warm.nodeSteps.toLocaleString('en-US')} node-steps)`);
+  const steps = AIRCRAFT * HOURS * 60;
+  bareLoop(steps);
+  lines.push(`  machine floor: a bare 3-state multiply-add loop over the same ${steps.toLocaleString('en-US')} steps takes ${bareLoop(steps).toFixed(1)} ms here`);
 
   if (process.env.QUICK) return lines;
   const tol = 1e-6;
