@@ -14,8 +14,8 @@ function describe(v: unknown): string {
   return Array.isArray(v) ? 'an array' : typeof v;
 }
 
-/** A finite number in [min, max]; NaN, ±Infinity and non-numbers get one clear message. */
-function num(min: number, max: number, what = 'a number') {
+/** A finite number in [min, max]; NaN, ±Infinity and non-numbers get one clear message. Shared by other contracts. */
+export function finiteNumber(min: number, max: number, what = 'a number') {
   return z
     .number({
       error: (iss) =>
@@ -28,6 +28,7 @@ function num(min: number, max: number, what = 'a number') {
     .min(min, `Must be at least ${min}.`)
     .max(max, `Must be at most ${max}.`);
 }
+const num = finiteNumber;
 const positive = (max: number) => num(0, max).refine((v) => v > 0, 'Must be greater than 0.');
 const temp = num(-100, 250, 'a temperature in °C');
 
@@ -39,11 +40,14 @@ function isIsoDateTime(v: string): boolean {
   const day = new Date(Date.UTC(y, m - 1, d));
   return day.getUTCMonth() === m - 1 && day.getUTCDate() === d; // no 30 February
 }
-const iso = z
+/** An ISO-8601 date-time string with a zone (Z or an offset); shared by other contracts. */
+export const isoDateTime = z
   .string({ error: (iss) => (iss.input === undefined ? 'Required.' : `Must be an ISO-8601 date-time string, not ${describe(iss.input)}.`) })
   .refine(isIsoDateTime, {
     error: (iss) => `Must be an ISO-8601 date-time with a zone, e.g. "2025-01-15T18:00:00Z" (got ${describe(iss.input)}).`,
   });
+
+const iso = isoDateTime;
 
 const nodeName = z.enum(['oil', 'engine'], {
   error: (iss) => (iss.input === undefined ? 'Required.' : `Unknown node ${describe(iss.input)}: must be "oil" or "engine".`),
