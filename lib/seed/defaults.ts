@@ -1,6 +1,9 @@
 import type { ShelterKind } from '@/models/Shelter';
 import type { ThermalParams } from '@/models/Aircraft';
-import { SHELTER_KINDS as SHELTER_PRESETS } from '@/lib/thermal/presets';
+import { ENGINE_CLASSES, SHELTER_KINDS as SHELTER_PRESETS, engineFromPreset, type EngineClassId } from '@/lib/thermal/presets';
+
+// Defaults for new records, from the soak model's presets (lib/thermal/presets.ts, where each number
+// carries its source or "estimate").
 
 export interface ShelterDefaults {
   heatCapacityJPerK: number;
@@ -17,13 +20,23 @@ export function shelterDefaultsFor(kind: ShelterKind): ShelterDefaults {
   return { ...hangar };
 }
 
-export function aircraftDefaultsFor(engineClass: string): { oilQuantityL: number; thermal: ThermalParams } {
-  const table: Record<string, { oilQuantityL: number; thermal: ThermalParams }> = {
-    'lc-drysump-4': { oilQuantityL: 3, thermal: { nodes: [{ name: 'oil', heatCapacityJPerK: 60000, lossWPerK: 6 }, { name: 'engine', heatCapacityJPerK: 50000, lossWPerK: 8 }], couplingWPerK: 4, coverFactor: 0.6, source: 'preset' } },
-    'ac-wetsump-4': { oilQuantityL: 7.5, thermal: { nodes: [{ name: 'oil', heatCapacityJPerK: 90000, lossWPerK: 5 }, { name: 'engine', heatCapacityJPerK: 110000, lossWPerK: 12 }], couplingWPerK: 15, coverFactor: 0.6, source: 'preset' } },
-    'ac-wetsump-6': { oilQuantityL: 11, thermal: { nodes: [{ name: 'oil', heatCapacityJPerK: 130000, lossWPerK: 6 }, { name: 'engine', heatCapacityJPerK: 160000, lossWPerK: 15 }], couplingWPerK: 20, coverFactor: 0.6, source: 'preset' } },
+export function isEngineClass(id: string): id is EngineClassId {
+  return id in ENGINE_CLASSES;
+}
+
+/** Oil quantity and two-node thermal parameters of an engine class (optionally for another oil quantity). */
+export function aircraftDefaultsFor(engineClass: string, oilL?: number): { oilQuantityL: number; thermal: ThermalParams } {
+  if (!isEngineClass(engineClass)) throw new Error(`Unknown engine class ${engineClass}`);
+  const p = ENGINE_CLASSES[engineClass];
+  const e = engineFromPreset(engineClass, { nodes: 2, oilL: oilL ?? p.oilL });
+  return {
+    oilQuantityL: oilL ?? p.oilL,
+    thermal: {
+      nodes: e.nodes.map((n) => ({ name: n.name, heatCapacityJPerK: n.heatCapacityJPerK, lossWPerK: n.lossWPerK })),
+      couplingWPerK: e.couplingWPerK,
+      coverFactor: e.coverFactor,
+      windCoefficient: e.windCoefficient,
+      source: 'preset',
+    },
   };
-  const d = table[engineClass];
-  if (!d) throw new Error(`Unknown engine class ${engineClass}`);
-  return d;
 }
