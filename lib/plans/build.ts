@@ -8,7 +8,7 @@ import type { PlanMode, PlanRequest, TariffPeriod } from '@/lib/planner/types';
 
 const HOUR = 3_600_000;
 /** How long before departure the model starts at the latest (a longer-parked engine is cold-soaked). */
-export const MAX_SOAK_HOURS = 36;
+export const MAX_SOAK_HOURS = 72;
 /** The Soak forecast runs on past departure, so the chart shows the morning. */
 export const AFTER_DEPARTURE_HOURS = 1.5;
 
