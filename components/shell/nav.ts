@@ -18,6 +18,7 @@ export const NAV: NavItem[] = [
   { href: '/aircraft', label: 'Aircraft', icon: 'aircraft', permission: 'org:read' },
   { href: '/soak', label: 'Soak forecast', icon: 'curve', permission: 'simulate' },
   { href: '/oil-log', label: 'Oil log', icon: 'oil', permission: 'oil-log:write' },
+  { href: '/calibration', label: 'Fit from log', icon: 'curve', permission: 'aircraft:edit' },
   { href: '/alerts', label: 'Alerts', icon: 'alert', permission: 'org:read', primary: true },
   { href: '/admin/users', label: 'Users', icon: 'users', permission: 'users:manage' },
   { href: '/settings', label: 'Settings', icon: 'settings', permission: 'org:read' },

@@ -34,7 +34,7 @@ async function idOf(registration: string) {
 /** Sends file bytes as the request body, as the upload form does. */
 async function upload(handler: Handler, id: string, bytes: Uint8Array | string, query = 'fileName=cooldown.csv', headers: Record<string, string> = {}) {
   const body = typeof bytes === 'string' ? new TextEncoder().encode(bytes) : bytes;
-  const req = new Request(`http://localhost/api/aircraft/${id}/logs?${query}`, { method: 'POST', body, headers: { 'content-type': 'text/csv', ...headers } });
+  const req = new Request(`http://localhost/api/aircraft/${id}/logs?${query}`, { method: 'POST', body: body as unknown as BodyInit, headers: { 'content-type': 'text/csv', ...headers } });
   const res = await handler(req, { params: Promise.resolve({ id }) });
   const text = await res.text();
   return { status: res.status, body: JSON.parse(text), text };
