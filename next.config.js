@@ -1,5 +1,7 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
+  // A second build directory lets a developer build and run a copy beside another build (default .next).
+  distDir: process.env.NEXT_DIST_DIR || '.next',
   // Native and ORM packages stay outside the bundle and load from node_modules at run time.
   serverExternalPackages: ['sequelize', 'sqlite3', 'smtp-server', 'nodemailer', 'bcryptjs'],
   poweredByHeader: false,

@@ -5,7 +5,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 
 const root = process.cwd();
-const buildId = path.join(root, '.next', 'BUILD_ID');
+const buildId = path.join(root, process.env.NEXT_DIST_DIR || '.next', 'BUILD_ID');
 const watched = ['app', 'components', 'lib', 'models', 'proxy.ts', 'next.config.js', 'tailwind.config.ts', 'package-lock.json'];
 
 function newest(p) {
