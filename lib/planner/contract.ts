@@ -47,6 +47,7 @@ export interface PlanJson {
     minOilC: number;
     minAt: string;
     met: boolean;
+    dipRows: number;
   };
   optimality?: PlanResult['optimality'];
   departure: string;
@@ -129,6 +130,7 @@ export function toPlanJson(res: PlanResult): PlanJson {
             minOilC: t4(res.floor.minOilC),
             minAt: iso(res.floor.minAtMs),
             met: res.floor.met,
+            dipRows: res.floor.dipRows,
           },
         }
       : {}),

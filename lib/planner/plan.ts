@@ -254,6 +254,7 @@ export function planDeparture(req: PlanRequest): PlanResult {
   let breachBeforeHeat: FloorReport['breachBeforeHeat'];
   let floorRestorable = true;
   const floorRows: OilResponseAt[] = [];
+  let dipRows = 0;
   if (floorC !== undefined) {
     const ends = slots.map((s) => s.toMs);
     const times = [earliest, ...ends];
@@ -311,6 +312,7 @@ export function planDeparture(req: PlanRequest): PlanResult {
       const min = oilMinimumBetween(planned, enforcedFromMs, T, { exact: true });
       if (min.oilC >= floorC - CHECK_TOL_K || !(min.atMs > enforcedFromMs && min.atMs < T)) break;
       floorRows.push(...floorResponses(p, [min.atMs]));
+      dipRows++;
       rows = rowsOf(p, floorRows, floorC);
       if (!meetsRows(rows, allOn)) break;
       solve();
@@ -337,6 +339,7 @@ export function planDeparture(req: PlanRequest): PlanResult {
       minOilC: min.oilC,
       minAtMs: min.atMs,
       met: floorRestorable && min.oilC >= floorC - CHECK_TOL_K,
+      dipRows,
     };
   }
 

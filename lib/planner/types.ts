@@ -86,6 +86,8 @@ export interface FloorReport {
   minOilC: number;
   minAtMs: number;
   met: boolean;
+  /** Times between slot ends where the re-simulated curve dipped below the floor and became constraints of their own. */
+  dipRows: number;
 }
 
 export interface Uncertainty {
