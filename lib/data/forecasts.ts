@@ -228,6 +228,15 @@ function refreshOnce(airfield: Airfield, now: Date): Promise<void> {
 export type RefreshMode = 'never' | 'if-old' | 'force';
 
 /**
+ * How server pages refresh for their first paint: with the in-process fake a refresh costs
+ * milliseconds, so pages refresh old forecasts themselves; with a remote service they only read the
+ * cache (a slow service must never hold up a page) and the client refreshes through the API.
+ */
+export function pageRefreshMode(): RefreshMode {
+  return env().FORECAST_BASE_URL ? 'never' : 'if-old';
+}
+
+/**
  * The airfield's stored forecast after refreshing it as asked: 'if-old' fetches when it is missing
  * or older than an hour (but not within a few minutes of a failure), 'force' always fetches,
  * 'never' only reads (server pages use it so a slow service never holds up a page).

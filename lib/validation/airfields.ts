@@ -2,11 +2,17 @@
 // Form values arrive as strings; numbers are coerced ("" means "not given", a decimal comma is read
 // as a point). Every issue carries its field's path, so errors show beside the field.
 import { z } from 'zod';
-import { SHELTER_KINDS, type ShelterKind } from '@/models/Shelter';
+import type { ShelterKind } from '@/models/Shelter';
 import { shelterDefaultsFor } from '@/lib/seed/defaults';
 import { canonicalTimeZone } from '@/lib/time';
 
-export { SHELTER_KINDS, type ShelterKind };
+export type { ShelterKind };
+
+/** The shelter kinds, in the order forms offer them (the same values as the model's; no model import, so forms stay light). */
+export const SHELTER_KINDS = ['heated-hangar', 'unheated-hangar', 't-hangar', 'tie-down'] as const satisfies readonly ShelterKind[];
+type Exhaustive<T extends ShelterKind> = [ShelterKind] extends [T] ? true : never;
+const exhaustive: Exhaustive<(typeof SHELTER_KINDS)[number]> = true;
+void exhaustive;
 
 export const SHELTER_KIND_LABEL: Record<ShelterKind, string> = {
   'heated-hangar': 'Heated hangar',

@@ -1,0 +1,36 @@
+// Display helpers for airfield and forecast views (client and server). Temperatures are stored in °C;
+// people may read them in °F (their preference).
+export type TempUnit = 'C' | 'F';
+
+const MINUS = '\u2212';
+
+export function toUnit(c: number, unit: TempUnit): number {
+  return unit === 'F' ? c * 1.8 + 32 : c;
+}
+
+/** "−14.2 °C" (one decimal), or "6 °F". */
+export function formatTemp(c: number | null | undefined, unit: TempUnit = 'C', digits = 1): string {
+  if (c === null || c === undefined || !Number.isFinite(c)) return '—';
+  const v = toUnit(c, unit);
+  const s = Math.abs(v) < 0.05 && digits > 0 ? (0).toFixed(digits) : v.toFixed(digits);
+  return `${s.replace('-', MINUS)} °${unit}`;
+}
+
+/** "−14°" — short, for map markers. */
+export function formatTempShort(c: number | null | undefined, unit: TempUnit = 'C'): string {
+  if (c === null || c === undefined || !Number.isFinite(c)) return '—';
+  const s = toUnit(c, unit).toFixed(0);
+  return `${(s === '-0' ? '0' : s).replace('-', MINUS)}°`;
+}
+
+/** "61.520° N, 23.960° E". */
+export function formatLatLon(lat: number, lon: number): string {
+  const f = (v: number, pos: string, neg: string) => `${Math.abs(v).toFixed(3)}° ${v >= 0 ? pos : neg}`;
+  return `${f(lat, 'N', 'S')}, ${f(lon, 'E', 'W')}`;
+}
+
+/** "1.2 MJ/K" style numbers for the thermal parameters. */
+export function formatNumber(v: number | null | undefined, digits = 1): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
+  return v.toLocaleString('en-GB', { maximumFractionDigits: digits }).replace('-', MINUS);
+}

@@ -1,0 +1,59 @@
+// Airfield markers for the Site map: a tag of Thawline's own design (identifier, tonight's low) with a
+// stem to the field's position, drawn as a Leaflet divIcon so no marker images are needed. The tag's
+// edge and glyph show the readiness of the field's aircraft once plans exist; without it the tag is neutral.
+import type { TempUnit } from '@/components/airfields/format';
+import { formatTempShort } from '@/components/airfields/format';
+
+export const READINESS = ['ready', 'warming', 'short', 'unplanned'] as const;
+export type Readiness = (typeof READINESS)[number];
+
+/** Label, glyph and CSS modifier of each readiness state (the glyph keeps it readable without colour). */
+export const READINESS_STYLE: Record<Readiness, { label: string; glyph: string; hint: string }> = {
+  ready: { label: 'Ready', glyph: '✓', hint: 'every aircraft will be warm enough' },
+  warming: { label: 'Warming', glyph: '▲', hint: 'a heat plan is running, on track' },
+  short: { label: 'Short', glyph: '!', hint: 'a plan cannot reach the ready temperature in time' },
+  unplanned: { label: 'Unplanned', glyph: '?', hint: 'needs heat, no plan yet' },
+};
+
+export interface MarkerContent {
+  ident: string;
+  lowC: number | null;
+  unit: TempUnit;
+  readiness?: Readiness;
+  stale?: boolean;
+  selected?: boolean;
+}
+
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+/** Band of the low for the value chip's shade: the colder, the deeper the ice. */
+function coldBand(lowC: number | null): string {
+  if (lowC === null) return 'none';
+  if (lowC <= -20) return 'deep';
+  if (lowC <= -10) return 'hard';
+  if (lowC <= 0) return 'frost';
+  return 'mild';
+}
+
+/** The marker's inner HTML (the divIcon's `html`). */
+export function markerHtml(m: MarkerContent): string {
+  const state = m.readiness ?? 'neutral';
+  const glyph = m.readiness ? `<span class="tl-mk-glyph" aria-hidden="true">${READINESS_STYLE[m.readiness].glyph}</span>` : '';
+  const low = escapeHtml(formatTempShort(m.lowC, m.unit));
+  const classes = ['tl-mk', `tl-mk--${state}`, `tl-mk--${coldBand(m.lowC)}`, m.stale ? 'tl-mk--stale' : '', m.selected ? 'tl-mk--selected' : '']
+    .filter(Boolean)
+    .join(' ');
+  return (
+    `<div class="${classes}">` +
+    `<div class="tl-mk-tag">${glyph}<span class="tl-mk-ident">${escapeHtml(m.ident)}</span><span class="tl-mk-low">${low}</span></div>` +
+    `<div class="tl-mk-stem"></div><div class="tl-mk-dot"></div>` +
+    `</div>`
+  );
+}
+
+/** Text for the marker's accessible name. */
+export function markerTitle(name: string, m: MarkerContent): string {
+  const low = m.lowC === null ? 'no forecast yet' : `tonight's low ${formatTempShort(m.lowC, m.unit)}${m.unit}`;
+  const r = m.readiness ? `, ${READINESS_STYLE[m.readiness].label.toLowerCase()}` : '';
+  return `${name} (${m.ident}): ${low}${r}${m.stale ? ', forecast out of date' : ''}`;
+}
