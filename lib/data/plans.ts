@@ -6,7 +6,7 @@ import { planDeparture } from '@/lib/planner';
 import type { PlanResult } from '@/lib/planner/types';
 import { simulate } from '@/lib/thermal';
 import { withHeater } from '@/lib/planner/model';
-import { planRequestFor, primaryHeater, soakModelFor, type PlanRecords } from '@/lib/plans/build';
+import { MAX_SOAK_HOURS, planRequestFor, primaryHeater, soakModelFor, type PlanRecords } from '@/lib/plans/build';
 import { forecastFor } from './forecasts';
 import { getDeparture, listDepartures, type Actor, type DepartureRecord } from './departures';
 import { tariffPeriodsBetween, tariffsFor, type TariffRecord } from './tariffs';
@@ -69,7 +69,8 @@ function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
   const fc = af ? ctx.forecasts.get(af.id) : null;
   if (!af || !fc || !fc.hours?.length) return null;
   const tariff = ctx.tariffs.get(af.id) ?? null;
-  const startMs = d.departAtMs - 40 * 3_600_000;
+  // Prices from before the earliest possible switch-on (now, or the soak start) to after departure.
+  const startMs = Math.min(ctx.now.getTime(), d.departAtMs - MAX_SOAK_HOURS * 3_600_000) - 3_600_000;
   return {
     departure: { id: d.id, departAtMs: d.departAtMs, readyC: d.readyC, floorC: d.floorC },
     aircraft: {
@@ -216,7 +217,14 @@ async function plansFor(orgId: number, departures: DepartureRecord[], now: Date,
     if (row && row.inputsKey === key) {
       computed = row.result as Computed;
     } else {
-      computed = compute(rec, now.getTime());
+      try {
+        computed = compute(rec, now.getTime());
+      } catch (err) {
+        // One aircraft's bad data must not take the board down: show it as needing attention.
+        console.error(`[thawline] heat plan for departure ${d.id} failed`, err);
+        out.push({ ...viewOf(d, { status: 'unplanned', result: null, freeOilC: null }, null, ctx, currency), summary: 'Could not compute a plan: check the aircraft profile', problem: 'plan-failed' });
+        continue;
+      }
       const values = {
         organizationId: orgId,
         departureId: d.id,
