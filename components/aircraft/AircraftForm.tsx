@@ -361,7 +361,8 @@ export function AircraftForm({
               <li key={h.key}>
                 <fieldset className="rounded-xl border border-slate-200 p-3 dark:border-slate-700">
                   <legend className="px-1 text-sm font-semibold text-ember-700 dark:text-ember-300">Heater {i + 1}</legend>
-                  <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-[1.4fr_0.8fr_0.9fr_1.1fr_0.7fr_auto] lg:items-start">
+                  <div className="grid grid-cols-2 gap-3 lg:grid-cols-[1.4fr_0.8fr_0.9fr_1.1fr_0.7fr_auto] lg:items-start">
+                    <div className="col-span-2 lg:col-span-1">
                     <SelectField
                       id={`ac-heater-${i}-kind`}
                       label="Kind"
@@ -376,11 +377,13 @@ export function AircraftForm({
                         <option key={k} value={k}>{HEATER_KINDS[k].label}</option>
                       ))}
                     </SelectField>
+                    </div>
                     <TextField id={`ac-heater-${i}-powerW`} label="Power (W)" inputMode="numeric" value={h.powerW} onChange={(e) => setHeater(i, { powerW: e.target.value })} error={err(`heaters.${i}.powerW`)} />
                     <SelectField id={`ac-heater-${i}-node`} label="Heats" value={h.node} onChange={(e) => setHeater(i, { node: e.target.value as Node })} error={err(`heaters.${i}.node`)}>
                       <option value="oil">The oil</option>
                       <option value="engine">The engine</option>
                     </SelectField>
+                    <div className="col-span-2 lg:col-span-1">
                     <SelectField
                       id={`ac-heater-${i}-control`}
                       label="Switched by"
@@ -393,8 +396,9 @@ export function AircraftForm({
                         <option key={c} value={c}>{HEATER_CONTROL_LABEL[c]}</option>
                       ))}
                     </SelectField>
+                    </div>
                     <TextField id={`ac-heater-${i}-slotMinutes`} label="Step (min)" inputMode="numeric" placeholder="auto" value={h.slotMinutes} onChange={(e) => setHeater(i, { slotMinutes: e.target.value })} error={err(`heaters.${i}.slotMinutes`)} />
-                    <div className="lg:pt-6">
+                    <div className="self-end lg:self-start lg:pt-6">
                       <Button type="button" variant="ghost" className="w-full text-red-700 dark:text-red-300" onClick={() => set('heaters', draft.heaters.filter((_, j) => j !== i))}>
                         Remove<span className="sr-only"> heater {i + 1}</span>
                       </Button>
@@ -486,12 +490,15 @@ export function AircraftForm({
       </div>
 
       <Card>
-        <details open={thermalState === 'edited' || fieldErrors.some(([f]) => f.startsWith('thermal'))}>
-          <summary className="flex min-h-11 cursor-pointer list-none items-center justify-between gap-2 text-lg font-semibold">
-            <span>
+        <details className="group" open={thermalState === 'edited' || fieldErrors.some(([f]) => f.startsWith('thermal'))}>
+          <summary className="flex min-h-11 cursor-pointer list-none items-center justify-between gap-2 text-lg font-semibold [&::-webkit-details-marker]:hidden">
+            <span className="inline-flex items-center gap-2">
+              <svg viewBox="0 0 20 20" className="h-4 w-4 text-slate-500 transition-transform group-open:rotate-90" fill="currentColor" aria-hidden="true">
+                <path d="M7 4l7 6-7 6z" />
+              </svg>
               Thermal parameters <span className="text-sm font-normal text-slate-500">(advanced)</span>
             </span>
-            <span className={`rounded-full px-2.5 py-1 text-xs font-semibold ${source === 'fitted' ? 'bg-ice-100 text-ice-900 dark:bg-ice-900 dark:text-ice-100' : source === 'manual' ? 'bg-amber-100 text-amber-900 dark:bg-amber-950 dark:text-amber-100' : 'bg-slate-100 text-slate-700 dark:bg-slate-800 dark:text-slate-300'}`}>
+            <span className={`whitespace-nowrap rounded-full px-2.5 py-1 text-xs font-semibold ${source === 'fitted' ? 'bg-ice-100 text-ice-900 dark:bg-ice-900 dark:text-ice-100' : source === 'manual' ? 'bg-amber-100 text-amber-900 dark:bg-amber-950 dark:text-amber-100' : 'bg-slate-100 text-slate-700 dark:bg-slate-800 dark:text-slate-300'}`}>
               {source === 'fitted' ? 'Fitted from a log' : source === 'manual' ? 'Entered by hand' : 'Class preset'}
             </span>
           </summary>

@@ -123,7 +123,7 @@ export function AircraftTable({ initial, tempUnit, volumeUnit, canEdit }: { init
       </ul>
 
       {/* Desktop: a dense table */}
-      <Card className="hidden overflow-hidden p-0 sm:p-0 md:block">
+      <div className="hidden rounded-2xl border border-slate-200 bg-white shadow-sm dark:border-slate-800 dark:bg-slate-900 overflow-hidden md:block">
         <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Aircraft of your organization; select a column heading to sort</caption>
@@ -191,7 +191,7 @@ export function AircraftTable({ initial, tempUnit, volumeUnit, canEdit }: { init
           </table>
         </div>
         {sorted.length === 0 ? <p className="px-5 py-6 text-sm text-slate-600 dark:text-slate-400">No aircraft match.</p> : null}
-      </Card>
+      </div>
 
       <div className="flex flex-wrap items-center justify-between gap-2 text-sm">
         <label className="inline-flex min-h-11 items-center gap-2 text-slate-700 dark:text-slate-300">

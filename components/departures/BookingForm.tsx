@@ -56,7 +56,9 @@ export function BookingForm({
   preselect?: number;
 }) {
   const { mutate } = useSWRConfig();
-  const first = aircraft.find((a) => a.id === preselect) ?? aircraft[0];
+  // Preselected, else the first in the list as shown (airfields by name, then registrations).
+  const shown = [...aircraft].sort((x, y) => x.airfield.name.localeCompare(y.airfield.name) || x.registration.localeCompare(y.registration));
+  const first = aircraft.find((a) => a.id === preselect) ?? shown[0];
   const tomorrowOf = (zone: string) => localDateKey(addDays(localDateOf(zone, nowMs), 1));
   const [form, setForm] = useState({
     aircraftId: first ? String(first.id) : '',
@@ -117,7 +119,7 @@ export function BookingForm({
 
   return (
     <Card aria-labelledby="book-h">
-      <h2 id="book-h" className="text-lg font-semibold">Book a departure</h2>
+      <h2 id="book-h" tabIndex={-1} className="scroll-mt-20 text-lg font-semibold outline-none">Book a departure</h2>
       <p className="text-sm text-slate-600 dark:text-slate-400">The first flight of the day for one aircraft.</p>
       <form onSubmit={onSubmit} noValidate aria-busy={pending} className="mt-4 space-y-4">
         <SelectField id="dep-aircraftId" name="aircraftId" label="Aircraft" value={form.aircraftId} onChange={set('aircraftId')} error={fields.aircraftId} hint={chosen ? `${chosen.typeLabel} · ${chosen.shelterName}${chosen.heaterW ? '' : ' · no heater fitted'}` : undefined}>

@@ -143,7 +143,7 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
       </div>
 
       {/* Desktop: a dense sortable table */}
-      <Card className="hidden overflow-hidden p-0 sm:p-0 md:block">
+      <div className="hidden rounded-2xl border border-slate-200 bg-white shadow-sm dark:border-slate-800 dark:bg-slate-900 overflow-hidden md:block">
         <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Upcoming departures; select a column heading to sort</caption>
@@ -154,7 +154,6 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                 <SortHeader col="airfield" label="Airfield" sort={sort} onSort={toggle} />
                 {manageAll ? <SortHeader col="pilot" label="Pilot" sort={sort} onSort={toggle} /> : null}
                 <SortHeader col="ready" label="Ready at" sort={sort} onSort={toggle} align="right" className="text-right" />
-                <th scope="col" className="px-4 py-1.5 text-xs font-semibold">Heat</th>
                 {hasExtra ? <th scope="col" className="px-4 py-1.5 text-xs font-semibold">{extraLabel}</th> : null}
                 <th scope="col" className="px-3 py-1.5">
                   <span className="sr-only">Actions</span>
@@ -173,18 +172,18 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                     <Link href={`/aircraft/${d.aircraft.id}`} className="font-semibold tracking-wide text-slate-900 hover:text-ice-700 hover:underline dark:text-white dark:hover:text-ice-300">
                       {d.aircraft.registration}
                     </Link>
-                    <div className="max-w-[14rem] truncate text-xs text-slate-500">{d.notes || d.aircraft.typeLabel}</div>
+                    <div className="max-w-[15rem] truncate text-xs text-slate-500">
+                      <Heat d={d} />
+                      {d.notes ? ` · ${d.notes}` : ''}
+                    </div>
                   </td>
                   <td className="px-4 py-2.5">
-                    {d.aircraft.airfield?.name ?? '—'}
-                    <div className="text-xs text-slate-500">{d.aircraft.shelter?.name}</div>
+                    <span className="whitespace-nowrap">{d.aircraft.airfield?.name ?? '—'}</span>
+                    <div className="max-w-[11rem] truncate text-xs text-slate-500">{d.aircraft.shelter?.name}</div>
                   </td>
                   {manageAll ? <td className="px-4 py-2.5">{d.pilot.name}</td> : null}
                   <td className="px-4 py-2.5 text-right">
                     <ReadyBadge d={d} unit={tempUnit} />
-                  </td>
-                  <td className="px-4 py-2.5 text-slate-700 dark:text-slate-300">
-                    <Heat d={d} />
                   </td>
                   {hasExtra ? <td className="px-4 py-2.5">{extraOf(d)}</td> : null}
                   <td className="px-3 py-2.5 text-right">
@@ -205,7 +204,7 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
             </tbody>
           </table>
         </div>
-      </Card>
+      </div>
       <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
         {status}
       </p>

@@ -59,7 +59,9 @@ export function TariffEditor({ initial, canEdit }: { initial: TariffRecord; canE
     const prices = periods.map((p, i) => ({ i, v: Number.isFinite(num(p.price)) ? num(p.price) : Infinity }));
     const order = [...prices].sort((a, b) => a.v - b.v).map((x) => x.i);
     const n = periods.length;
-    return (i: number) => SWATCHES[n <= 1 ? 1 : Math.round((order.indexOf(i) / (n - 1)) * (SWATCHES.length - 1))];
+    // Two or three periods read best as cold / neutral / warm; more spread along the whole scale.
+    const picks: Record<number, number[]> = { 1: [1], 2: [0, 6], 3: [0, 2, 7] };
+    return (i: number) => SWATCHES[picks[n]?.[order.indexOf(i)] ?? Math.round((order.indexOf(i) / (n - 1)) * (SWATCHES.length - 1))];
   }, [periods]);
 
   /** The row shown: the month's, or for "all months" the common value per hour (null where months differ). */
@@ -140,7 +142,7 @@ export function TariffEditor({ initial, canEdit }: { initial: TariffRecord; canE
           <legend className="text-sm font-medium text-slate-800 dark:text-slate-200">{canEdit ? 'Choose a period to paint hours with' : 'Periods'}</legend>
           <ul className="mt-2 space-y-2">
             {periods.map((p, i) => (
-              <li key={i} className={`grid items-end gap-3 rounded-xl border p-3 sm:grid-cols-[auto_1fr_10rem_auto] ${brush === i && canEdit ? 'border-ice-500 ring-2 ring-ice-200 dark:ring-ice-800' : 'border-slate-200 dark:border-slate-700'}`}>
+              <li key={i} className={`grid grid-cols-[auto_1fr_6.5rem] items-end gap-3 rounded-xl border p-3 sm:grid-cols-[auto_1fr_10rem_auto] ${brush === i && canEdit ? 'border-ice-500 ring-2 ring-ice-200 dark:ring-ice-800' : 'border-slate-200 dark:border-slate-700'}`}>
                 <label className="flex min-h-11 items-center gap-2 text-sm font-medium">
                   <input type="radio" name="brush" className="h-5 w-5 accent-ice-700" checked={brush === i} onChange={() => setBrush(i)} disabled={!canEdit} />
                   <span className={`inline-flex h-8 w-8 items-center justify-center rounded-lg text-xs font-bold ${swatchOf(i)}`} aria-hidden="true">
@@ -151,11 +153,11 @@ export function TariffEditor({ initial, canEdit }: { initial: TariffRecord; canE
                 <TextField id={`tariff-period-${i}-name`} label="Name" value={p.name} readOnly={!canEdit} error={fields[`periods.${i}.name`]} onChange={(e) => setPeriods((ps) => ps.map((x, j) => (j === i ? { ...x, name: e.target.value } : x)))} />
                 <TextField id={`tariff-period-${i}-price`} label={`Price (${currency || '—'}/kWh)`} inputMode="decimal" value={p.price} readOnly={!canEdit} error={fields[`periods.${i}.pricePerKWh`]} onChange={(e) => setPeriods((ps) => ps.map((x, j) => (j === i ? { ...x, price: e.target.value } : x)))} />
                 {canEdit && periods.length > 1 ? (
-                  <Button type="button" variant="ghost" className="text-red-700 dark:text-red-300" onClick={() => removePeriod(i)}>
+                  <Button type="button" variant="ghost" className="col-span-3 justify-self-end text-red-700 dark:text-red-300 sm:col-span-1" onClick={() => removePeriod(i)}>
                     Remove<span className="sr-only"> {p.name}</span>
                   </Button>
                 ) : (
-                  <span />
+                  <span className="hidden sm:block" />
                 )}
               </li>
             ))}

@@ -46,8 +46,13 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
         title="Departures"
         subtitle={bookAny ? 'Every booked first flight of the day, and booking for any pilot.' : 'Your first flights of the day and whether the oil will be warm enough.'}
       />
-      <div className="grid gap-5 lg:grid-cols-[22rem_1fr] lg:items-start">
-        <div className="lg:sticky lg:top-4">
+      {choices.length ? (
+        <a href="#book-h" className="mb-4 inline-flex min-h-11 items-center rounded-xl bg-ice-700 px-4 text-sm font-semibold text-white hover:bg-ice-800 dark:bg-ice-500 dark:text-slate-950 xl:hidden">
+          Book a departure
+        </a>
+      ) : null}
+      <div className="grid gap-5 xl:grid-cols-[21rem_1fr] xl:items-start">
+        <div className="order-2 scroll-mt-20 xl:sticky xl:top-4 xl:order-1">
           {choices.length ? (
             <BookingForm aircraft={choices} pilots={pilotChoices} selfId={user.id} tempUnit={user.tempUnit} nowMs={nowMs} preselect={pre ? Number(pre) : undefined} />
           ) : (
@@ -56,7 +61,7 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
             </p>
           )}
         </div>
-        <section aria-labelledby="upcoming-h" className="min-w-0">
+        <section aria-labelledby="upcoming-h" className="order-1 min-w-0 xl:order-2">
           <h2 id="upcoming-h" className="mb-3 text-lg font-semibold">{bookAny ? 'Upcoming departures' : 'Your upcoming departures'}</h2>
           <DepartureList initial={departures} tempUnit={user.tempUnit} selfId={user.id} manageAll={bookAny} nowMs={nowMs} />
         </section>
