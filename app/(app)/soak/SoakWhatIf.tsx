@@ -42,7 +42,8 @@ function nightProfile(startMs: number, hours: number, lowC: number, swingK: numb
   return pts;
 }
 
-function zoneOffsetHours(timeZone: string, atMs: number) {
+function zoneOffsetHours(timeZone: string, at: number) {
+  const atMs = Math.floor(at / 60_000) * 60_000;
   const parts = new Intl.DateTimeFormat('en-US', { timeZone, hourCycle: 'h23', year: 'numeric', month: 'numeric', day: 'numeric', hour: 'numeric', minute: 'numeric' }).formatToParts(atMs);
   const get = (t: string) => Number(parts.find((p) => p.type === t)?.value);
   const asUtc = Date.UTC(get('year'), get('month') - 1, get('day'), get('hour'), get('minute'));
