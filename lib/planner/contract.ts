@@ -11,19 +11,8 @@ const r = (v: number, d: number) => Math.round(v * 10 ** d) / 10 ** d;
 const t4 = (v: number) => r(v, 4);
 const e5 = (v: number) => r(v, 5);
 
-export interface BaselineJson {
-  rule: Baseline['rule'];
-  hours?: number;
-  from: string;
-  to: string;
-  clipped: boolean;
-  energyKWh: number;
-  cost?: number;
-  oilAtDepartureC: number;
-  meetsReady: boolean;
-  meetsFloor?: boolean;
-  saved: { energyKWh: number; cost?: number };
-}
+/** A baseline as JSON: ISO times instead of epoch ms. */
+export type BaselineJson = Omit<Baseline, 'fromMs' | 'toMs'> & { from: string; to: string };
 
 export interface PlanJson {
   status: PlanResult['status'];

@@ -262,7 +262,8 @@ export function planDeparture(req: PlanRequest): PlanResult {
     const freeAtEarliest = base[0];
     const before = earliest > model.startMs ? oilMinimumBetween(model, model.startMs, earliest, { exact: true }).oilC : freeAtEarliest;
     if (before < floorC || freeAtEarliest < floorC) {
-      breachBeforeHeat = { fromMs: firstOilCrossing(model, floorC) ?? model.startMs, oilAtSwitchOnC: freeAtEarliest };
+      const fromMs = model.oil.initialTempC < floorC ? model.startMs : (firstOilCrossing(model, floorC) ?? model.startMs);
+      breachBeforeHeat = { fromMs, oilAtSwitchOnC: freeAtEarliest };
     }
     if (freeAtEarliest < floorC) {
       const full = restartAt(withHeater(model, req.heater, [{ fromMs: earliest, toMs: T }]), earliest, T);
@@ -298,25 +299,30 @@ export function planDeparture(req: PlanRequest): PlanResult {
     }
   };
 
+  // The last continuous floor check, reused for the report when the plan did not change since.
+  let checked: { key: string; min: { atMs: number; oilC: number } } | undefined;
+  const keyOf = (x: Uint8Array) => x.join('');
   if (!feasible) {
     status = 'short';
     on = allOn;
-  } else if (rows.every((r) => r.need <= 0)) {
-    status = 'ready';
   } else {
-    status = 'warming';
-    solve();
+    if (!rows.every((r) => r.need <= 0)) solve();
     // Dips between slot ends: add a row where the re-simulated curve is lowest, and solve again.
-    for (let round = 0; floorC !== undefined && round < MAX_FLOOR_ROUNDS; round++) {
+    for (let round = 0; floorC !== undefined && T > enforcedFromMs && round < MAX_FLOOR_ROUNDS; round++) {
       const planned = withHeater(model, req.heater, intervalsOf(slots, on));
       const min = oilMinimumBetween(planned, enforcedFromMs, T, { exact: true });
+      checked = { key: keyOf(on), min };
       if (min.oilC >= floorC - CHECK_TOL_K || !(min.atMs > enforcedFromMs && min.atMs < T)) break;
       floorRows.push(...floorResponses(p, [min.atMs]));
       dipRows++;
       rows = rowsOf(p, floorRows, floorC);
-      if (!meetsRows(rows, allOn)) break;
+      if (!meetsRows(rows, allOn)) {
+        on = allOn;
+        break;
+      }
       solve();
     }
+    status = !meetsRows(rows, allOn) ? 'short' : on.some((v) => v) ? 'warming' : 'ready';
   }
   if (req.mode === 'single-start' && status !== 'short') {
     const mReady = trailingBlock(K, rows.slice(0, 1));
@@ -331,7 +337,12 @@ export function planDeparture(req: PlanRequest): PlanResult {
   const planCost = heaterOn.reduce((s, i) => s + pricing.energyCost(i.fromMs, i.toMs, kWhOf(P, i.fromMs, i.toMs)), 0);
 
   if (floorC !== undefined) {
-    const min = T > enforcedFromMs ? oilMinimumBetween(planned, enforcedFromMs, T, { exact: true }) : { atMs: T, oilC: oilAtDepartureC };
+    const min =
+      T <= enforcedFromMs
+        ? { atMs: T, oilC: oilAtDepartureC }
+        : checked && checked.key === keyOf(on)
+          ? checked.min
+          : oilMinimumBetween(planned, enforcedFromMs, T, { exact: true });
     floorReport = {
       floorC,
       enforcedFromMs,
@@ -363,7 +374,16 @@ export function planDeparture(req: PlanRequest): PlanResult {
     const m = withHeater(model, req.heater, iv);
     const e = kWhOf(P, from, T);
     const c = pricing.energyCost(from, T, e);
-    const oil = oilAt(m, T);
+    // On the slot grid the block's oil is the exact affine response (equal to a re-simulation to
+    // rounding; the checks compare); off it, or with a floor to check, it is simulated.
+    const first = slots.findIndex((sl) => sl.fromMs === from);
+    let oil: number;
+    if (floorC === undefined && (first >= 0 || iv.length === 0)) {
+      oil = atT.baseOilC;
+      if (first >= 0) for (let k = first; k < K; k++) oil += a[k];
+    } else {
+      oil = oilAt(m, T);
+    }
     const b: Baseline = {
       rule,
       ...(hours !== undefined ? { hours } : {}),

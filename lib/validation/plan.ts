@@ -2,46 +2,26 @@
 // `heaters` (the planner chooses them), plus `plan`. Every issue carries the path of its field
 // (e.g. ["plan", "heater", "node"]).
 import { z } from 'zod';
-import { simulationInputSchema } from './simulation';
+import { finiteNumber, isoDateTime, simulationInputSchema } from './simulation';
 
 export const MAX_TARIFF_PERIODS = 1_000;
 export const MAX_PLAN_SLOTS = 2_000;
 
-/** A finite number in [min, max], with one clear message for NaN, Infinity and non-numbers. */
-function num(min: number, max: number, what = 'a number') {
-  return z
-    .number({
-      error: (iss) =>
-        iss.input === undefined
-          ? 'Required.'
-          : typeof iss.input === 'number' || iss.input === 'NaN' || iss.input === 'Infinity' || iss.input === '-Infinity'
-            ? `Must be a finite number, not ${String(iss.input)}.`
-            : `Must be ${what}, not ${JSON.stringify(iss.input) ?? typeof iss.input}.`,
-    })
-    .min(min, `Must be at least ${min}.`)
-    .max(max, `Must be at most ${max}.`);
-}
-
-const iso = z.iso.datetime({
-  offset: true,
-  error: (iss) =>
-    iss.input === undefined
-      ? 'Required.'
-      : `Must be an ISO-8601 date-time with seconds and a zone, e.g. "2025-01-16T07:30:00Z" (got ${JSON.stringify(iss.input) ?? typeof iss.input}).`,
-});
-const temp = num(-100, 250, 'a temperature in °C');
+// Field schemas of the simulate contract, reused so both contracts word their errors alike.
+const S = simulationInputSchema.shape;
+const iso = isoDateTime;
+const temp = S.outside.element.shape.tempC;
+const nodeName = S.engine.shape.nodes.element.shape.name;
 const ms = (s: string) => Date.parse(s);
 
-const tariffPeriod = z.strictObject({ from: iso, to: iso, pricePerKWh: num(0, 1e4, 'a price per kWh') });
+const tariffPeriod = z.strictObject({ from: iso, to: iso, pricePerKWh: finiteNumber(0, 1e4, 'a price per kWh') });
 
 export const planSchema = z.strictObject({
   departure: iso,
   readyC: temp,
   heater: z.strictObject({
-    node: z.enum(['oil', 'engine'], {
-      error: (iss) => (iss.input === undefined ? 'Required.' : `Unknown node ${JSON.stringify(iss.input)}: must be "oil" or "engine".`),
-    }),
-    powerW: num(0, 1e6, 'a power in W').refine((v) => v > 0, 'Must be greater than 0.'),
+    node: nodeName,
+    powerW: finiteNumber(0, 1e6, 'a power in W').refine((v) => v > 0, 'Must be greater than 0.'),
   }),
   tariff: z
     .array(tariffPeriod, { error: (iss) => (iss.input === undefined ? 'Required.' : 'Must be an array of { from, to, pricePerKWh } periods.') })
@@ -49,22 +29,22 @@ export const planSchema = z.strictObject({
     .max(MAX_TARIFF_PERIODS, `At most ${MAX_TARIFF_PERIODS} periods.`)
     .optional(),
   /** A flat price per kWh when there is no tariff: costs are then reported. */
-  flatPricePerKWh: num(0, 1e4, 'a price per kWh').optional(),
+  flatPricePerKWh: finiteNumber(0, 1e4, 'a price per kWh').optional(),
   floorC: temp.optional(),
   mode: z.enum(['least-cost', 'single-start'], {
     error: (iss) => (iss.input === undefined ? 'Required: "least-cost" or "single-start".' : `Must be "least-cost" or "single-start", not ${JSON.stringify(iss.input)}.`),
   }),
-  slotMinutes: num(1, 240, 'a number of minutes').optional(),
+  slotMinutes: finiteNumber(1, 240, 'a number of minutes').optional(),
   earliestSwitchOn: iso.optional(),
   now: iso.optional(),
   /** When the forecast was issued (default: now, else start), for its error's lead time. */
   forecastIssuedAt: iso.optional(),
   /** The "on N hours before departure" rules to compare against (default 1, 2, 3, 4). */
-  baselineHours: z.array(num(0.1, 168, 'a number of hours')).max(24, 'At most 24 rules.').optional(),
+  baselineHours: z.array(finiteNumber(0.1, 168, 'a number of hours')).max(24, 'At most 24 rules.').optional(),
   /** Per-hour forecast errors correlated over this many hours (default: one uniform shift). */
-  correlationHours: num(0, 1000, 'a number of hours').optional(),
+  correlationHours: finiteNumber(0, 1000, 'a number of hours').optional(),
   /** Plan for this chance of being ready (0.5–0.999) instead of the forecast's best guess. */
-  targetProbability: num(0.5, 0.999, 'a probability').optional(),
+  targetProbability: finiteNumber(0.5, 0.999, 'a probability').optional(),
 }, {
   error: (iss) =>
     iss.input === undefined ? 'Required: { departure, readyC, heater: { node, powerW }, mode }.' : 'Must be an object { departure, readyC, heater, mode, … }.',

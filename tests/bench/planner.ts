@@ -4,6 +4,7 @@
 // cold and warm. Then the same slot choices through the LP solver (javascript-lp-solver) on the
 // same rows: the speed ratio and the largest cost gap of the plans to the LP optimum; and, for a
 // few aircraft, the solver's own 0/1 branch and bound.
+import fc from 'fast-check';
 import { engineFromPreset, ENGINE_CLASS_IDS, ENGINE_CLASSES, heaterResponse, shelterFromPreset, type ShelterKind, type SoakModel } from '@/lib/thermal';
 import { oilResponses } from '@/lib/thermal/planner-support';
 import { coverExact, planDeparture, pricingOf, slotGrid, solveCoverWithLpSolver, type PlanRequest, type PlanResult, type TariffPeriod } from '@/lib/planner';
@@ -12,16 +13,11 @@ const H = 3_600_000;
 const START = Date.parse('2025-01-15T15:00:00Z');
 const AIRCRAFT = 200;
 
-/** Deterministic pseudo-random numbers (mulberry32). */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+/** Deterministic uniform numbers in [0, 1) from fast-check's seeded generator. */
+function uniforms(seed: number): () => number {
+  const xs = fc.sample(fc.double({ min: 0, max: 1, maxExcluded: true, noNaN: true }), { numRuns: 10_000, seed });
+  let i = 0;
+  return () => xs[i++ % xs.length];
 }
 
 // Invented tariff: evening peak, night off-peak, morning shoulder (peak ≈ 2.7 × off-peak).
@@ -32,8 +28,8 @@ const TARIFF: TariffPeriod[] = [
 ];
 
 /** 200 invented aircraft on three invented airfields' cold night. */
-function fleet(): PlanRequest[] {
-  const r = rng(4242);
+export function fleet(): PlanRequest[] {
+  const r = uniforms(4242);
   const shelters: ShelterKind[] = ['t-hangar', 't-hangar', 'unheated-hangar', 'tie-down', 'heated-hangar'];
   const out: PlanRequest[] = [];
   for (let i = 0; i < AIRCRAFT; i++) {
