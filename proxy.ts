@@ -4,7 +4,7 @@ import { env } from '@/lib/env';
 
 // Sends signed-out visitors to sign-in. It reads only the signed session cookie (no database);
 // every layout, page and route handler checks the session, role and organization again.
-const PUBLIC = ['/signin', '/api/auth', '/api/health', '/api/fake-weather', '/api/calendar', '/unsubscribe', '/invite', '/reset'];
+const PUBLIC = ['/signin', '/api/auth', '/api/health', '/api/fake-weather', '/api/calendar', '/unsubscribe', '/invite', '/reset', '/forgot', '/api/tokens'];
 
 export async function proxy(req: NextRequest) {
   const { pathname } = req.nextUrl;

@@ -1,8 +1,10 @@
 import 'server-only';
+import crypto from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import { db } from '@/models';
 import { Conflict, Forbidden, Invalid, NotFound } from '@/lib/api/errors';
 import type { Role } from '@/lib/auth/permissions';
+import { writeInvitation } from './tokens';
 
 export interface UserRow {
   id: number;
@@ -47,6 +49,22 @@ export async function createUser({ orgId, name, email, role, temporaryPassword }
   const passwordHash = await bcrypt.hash(temporaryPassword, 10);
   const u = await User.create({ organizationId: orgId, name, email, role, passwordHash, mustChangePassword: true });
   return row(u);
+}
+
+/**
+ * Adds a user by e-mail invitation: the account, a single-use invitation token and its e-mail are
+ * written in one transaction. Nobody knows the account's password until the invitee chooses one.
+ */
+export async function inviteUser({ orgId, inviterId, name, email, role, now = new Date() }: { orgId: number; inviterId: number; name: string; email: string; role: Role; now?: Date }) {
+  const { User, sequelize } = db();
+  const existing = await User.findOne({ where: { email } });
+  if (existing) throw new Conflict('That e-mail address is already in use.');
+  const passwordHash = await bcrypt.hash(crypto.randomBytes(32).toString('base64url'), 10);
+  return sequelize.transaction(async (transaction) => {
+    const u = await User.create({ organizationId: orgId, name, email, role, passwordHash, mustChangePassword: true }, { transaction });
+    const invitation = await writeInvitation({ orgId, user: u, inviterId, now, transaction });
+    return { ...row(u), invitation: { expiresAt: invitation.expiresAt.toISOString() } };
+  });
 }
 
 export async function updateUser({ orgId, actorId, userId, role, active }: { orgId: number; actorId: number; userId: number; role?: Role; active?: boolean }) {

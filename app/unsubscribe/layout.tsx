@@ -1,0 +1,2 @@
+// The public unsubscribe page wears the sign-in pages' frame.
+export { default } from '../(auth)/layout';

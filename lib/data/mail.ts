@@ -1,0 +1,115 @@
+import 'server-only';
+import { Op, fn, col } from 'sequelize';
+import { db } from '@/models';
+import { NotFound } from '@/lib/api/errors';
+import type { OutboxStatus } from '@/models/OutboxMessage';
+import type { CapturedMail } from '@/models/CapturedMail';
+
+// The local mail capture's messages and the outbox's state, for managers of one organization.
+
+export interface CapturedSummary {
+  id: number;
+  subject: string;
+  from: string;
+  to: string;
+  kind: string | null;
+  receivedAt: string;
+  sizeBytes: number;
+}
+
+export interface CapturedDetail extends CapturedSummary {
+  messageId: string | null;
+  recipients: string[];
+  headers: Record<string, string>;
+  text: string;
+  html: string;
+  raw: string;
+}
+
+async function kindsByMessageId(ids: (string | null)[]) {
+  const { OutboxMessage } = db();
+  const list = ids.filter((x): x is string => !!x);
+  if (!list.length) return new Map<string, string>();
+  const rows = await OutboxMessage.findAll({ where: { messageId: { [Op.in]: list } }, attributes: ['messageId', 'kind'] });
+  return new Map(rows.map((r) => [r.messageId, r.kind as string]));
+}
+
+function summaryOf(r: CapturedMail, kinds: Map<string, string>): CapturedSummary {
+  return {
+    id: r.id,
+    subject: r.subject,
+    from: r.fromHeader,
+    to: r.toHeader,
+    kind: (r.messageId && kinds.get(r.messageId)) || null,
+    receivedAt: r.receivedAt.toISOString(),
+    sizeBytes: r.sizeBytes,
+  };
+}
+
+export async function listCapturedMail({ orgId, limit = 100 }: { orgId: number; limit?: number }): Promise<CapturedSummary[]> {
+  const { CapturedMail } = db();
+  const rows = await CapturedMail.findAll({
+    where: { organizationId: orgId },
+    order: [['receivedAt', 'DESC'], ['id', 'DESC']],
+    limit,
+    attributes: ['id', 'subject', 'fromHeader', 'toHeader', 'receivedAt', 'sizeBytes', 'messageId'],
+  });
+  const kinds = await kindsByMessageId(rows.map((r) => r.messageId));
+  return rows.map((r) => summaryOf(r, kinds));
+}
+
+export async function getCapturedMail({ orgId, id }: { orgId: number; id: number }): Promise<CapturedDetail> {
+  const { CapturedMail } = db();
+  const r = await CapturedMail.findOne({ where: { id, organizationId: orgId } });
+  if (!r) throw new NotFound('Message');
+  const kinds = await kindsByMessageId([r.messageId]);
+  return {
+    ...summaryOf(r, kinds),
+    messageId: r.messageId,
+    recipients: r.recipients,
+    headers: r.headers,
+    text: r.text,
+    html: r.html,
+    raw: r.raw,
+  };
+}
+
+export interface OutboxRow {
+  id: number;
+  kind: string;
+  to: string;
+  subject: string;
+  status: OutboxStatus;
+  attempts: number;
+  lastError: string | null;
+  nextAttemptAt: string;
+  sentAt: string | null;
+  createdAt: string;
+}
+
+/** Counts by status and the latest messages of the organization's outbox. */
+export async function outboxSummary({ orgId, limit = 20 }: { orgId: number; limit?: number }) {
+  const { OutboxMessage } = db();
+  const counts = (await OutboxMessage.findAll({
+    where: { organizationId: orgId },
+    attributes: ['status', [fn('COUNT', col('id')), 'n']],
+    group: ['status'],
+    raw: true,
+  })) as unknown as { status: OutboxStatus; n: number | string }[];
+  const byStatus: Record<OutboxStatus, number> = { pending: 0, sending: 0, sent: 0, failed: 0, expired: 0, cancelled: 0 };
+  for (const c of counts) byStatus[c.status] = Number(c.n);
+  const rows = await OutboxMessage.findAll({ where: { organizationId: orgId }, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit });
+  const recent: OutboxRow[] = rows.map((m) => ({
+    id: m.id,
+    kind: m.kind,
+    to: m.toAddress,
+    subject: m.subject,
+    status: m.status,
+    attempts: m.attempts,
+    lastError: m.lastError ?? null,
+    nextAttemptAt: m.nextAttemptAt.toISOString(),
+    sentAt: m.sentAt ? m.sentAt.toISOString() : null,
+    createdAt: m.createdAt.toISOString(),
+  }));
+  return { counts: byStatus, recent };
+}
