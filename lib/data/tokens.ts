@@ -37,7 +37,7 @@ function newToken(): string {
   return crypto.randomBytes(32).toString('base64url');
 }
 
-/** A new token for the user; earlier unused tokens of the same purpose stop working. */
+/** A new token for the user; earlier unused tokens of the same purpose stop working (they expire now). */
 export async function createToken({
   orgId,
   userId,
@@ -54,7 +54,7 @@ export async function createToken({
   transaction?: Transaction;
 }): Promise<{ token: string; expiresAt: Date }> {
   const { Token } = db();
-  await Token.update({ usedAt: now }, { where: { userId, purpose, usedAt: null }, transaction });
+  await Token.update({ expiresAt: now }, { where: { userId, purpose, usedAt: null, expiresAt: { [Op.gt]: now } }, transaction });
   const token = newToken();
   const expiresAt = new Date(now.getTime() + TOKEN_TTL_MS[purpose]);
   await Token.create({ organizationId: orgId, userId, purpose, tokenHash: tokenDigest(token), expiresAt, createdById }, { transaction });
