@@ -1,7 +1,8 @@
 'use client';
 import { useRouter } from 'next/navigation';
 import { useId, useMemo, useRef, useState } from 'react';
-import { Button, Card, Notice } from '@/components/ui/primitives';
+import { Button, Card } from '@/components/ui/primitives';
+import { ResultNotice, type FormResult } from './ResultNotice';
 import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { zonedTimeToUtc, zoneLabel } from '@/lib/time';
@@ -149,7 +150,7 @@ export function AircraftForm({
   });
   const [thermalState, setThermalState] = useState<'kept' | 'edited' | 'reset'>('kept');
   const [fields, setFields] = useState<Record<string, string>>({});
-  const [message, setMessage] = useState<{ tone: 'info' | 'danger'; text: string } | null>(null);
+  const [message, setMessage] = useState<FormResult | null>(null);
   const [pending, setPending] = useState(false);
   const summaryRef = useRef<HTMLDivElement>(null);
 
@@ -218,7 +219,7 @@ export function AircraftForm({
       router.refresh();
     } else {
       setFields(r.fields);
-      setMessage({ tone: 'danger', text: r.message });
+      setMessage({ tone: 'caution', text: r.message });
       requestAnimationFrame(() => summaryRef.current?.focus());
     }
   }
@@ -230,7 +231,7 @@ export function AircraftForm({
     const r = await sendJson<{ cancelledDepartures: number }>(`/api/aircraft/${initial.id}`, 'DELETE');
     setPending(false);
     if (r.ok) router.push('/aircraft');
-    else setMessage({ tone: 'danger', text: r.message });
+    else setMessage({ tone: 'caution', text: r.message });
   }
 
   const fieldErrors = Object.entries(fields);
@@ -244,26 +245,11 @@ export function AircraftForm({
   return (
     <form onSubmit={onSubmit} noValidate aria-busy={pending} className="space-y-4">
       <div ref={summaryRef} tabIndex={-1} className="outline-none">
-        <p role="status" aria-live="polite" className="sr-only">
-          {pending ? 'Saving…' : (message?.text ?? '')}
-        </p>
-        {message ? (
-          <Notice tone={message.tone} title={message.tone === 'danger' ? 'Not saved' : undefined}>
-            <p>{message.text}</p>
-            {fieldErrors.length ? (
-              <ul className="mt-2 list-disc space-y-0.5 pl-5">
-                {fieldErrors.map(([f, m]) => (
-                  <li key={f}>
-                    <a className="underline" href={`#${inputIdFor(f)}`}>
-                      {LABELS[f.split('.')[0]] ?? f}
-                    </a>
-                    : {m}
-                  </li>
-                ))}
-              </ul>
-            ) : null}
-          </Notice>
-        ) : null}
+        <ResultNotice
+          result={message}
+          failTitle="Not saved"
+          errors={fieldErrors.map(([f, m]) => ({ key: f, label: LABELS[f.split('.')[0]] ?? f, message: m, href: `#${inputIdFor(f)}` }))}
+        />
       </div>
 
       <div className="grid gap-4 lg:grid-cols-2">

@@ -1,7 +1,8 @@
 'use client';
 import { useMemo, useState } from 'react';
 import { useSWRConfig } from 'swr';
-import { Button, Card, Notice } from '@/components/ui/primitives';
+import { Button, Card } from '@/components/ui/primitives';
+import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotice';
 import { FieldShell, SelectField, TextField, inputClass } from '@/components/ui/Field';
 import { fmtTemp } from '@/components/aircraft/format';
 import { sendJson } from '@/lib/client/fetcher';
@@ -70,7 +71,7 @@ export function BookingForm({
     notes: '',
   });
   const [fields, setFields] = useState<Record<string, string>>({});
-  const [result, setResult] = useState<{ tone: 'info' | 'caution'; text: string } | null>(null);
+  const [result, setResult] = useState<FormResult | null>(null);
   const [pending, setPending] = useState(false);
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
 
@@ -215,22 +216,7 @@ export function BookingForm({
         <Button type="submit" disabled={pending || aircraft.length === 0} className="w-full">
           {pending ? 'Booking…' : 'Book departure'}
         </Button>
-        <div role="status" aria-live="polite">
-          {result ? (
-            <Notice tone={result.tone} title={result.tone === 'info' ? 'Booked' : 'Not booked'}>
-              <p>{result.text}</p>
-              {fieldErrors.length ? (
-                <ul className="mt-1 list-disc pl-5">
-                  {fieldErrors.map(([f, m]) => (
-                    <li key={f}>
-                      {LABEL[f] ?? f}: {m}
-                    </li>
-                  ))}
-                </ul>
-              ) : null}
-            </Notice>
-          ) : null}
-        </div>
+        <ResultNotice result={result} okTitle="Booked" failTitle="Not booked" errors={fieldErrors.map(([f, m]) => ({ key: f, label: LABEL[f] ?? f, message: m }))} />
       </form>
     </Card>
   );

@@ -1,6 +1,7 @@
 'use client';
 import { useMemo, useState } from 'react';
 import { Button, Card, Notice } from '@/components/ui/primitives';
+import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotice';
 import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { localDateOf } from '@/lib/time';
@@ -50,7 +51,7 @@ export function TariffEditor({ initial, canEdit }: { initial: TariffRecord; canE
   const [month, setMonth] = useState<Month>(() => (initial.weekdaySchedule.every((r) => r.join() === initial.weekdaySchedule[0].join()) && initial.weekendSchedule.every((r) => r.join() === initial.weekendSchedule[0].join()) ? 'all' : localDateOf(initial.timeZone, Date.now()).month - 1));
   const [brush, setBrush] = useState(0);
   const [fields, setFields] = useState<Record<string, string>>({});
-  const [result, setResult] = useState<{ tone: 'info' | 'caution'; text: string } | null>(null);
+  const [result, setResult] = useState<FormResult | null>(null);
   const [pending, setPending] = useState(false);
   const [source, setSource] = useState(initial.source);
 
@@ -238,20 +239,7 @@ export function TariffEditor({ initial, canEdit }: { initial: TariffRecord; canE
           </Button>
         </div>
       ) : null}
-      <div role="status" aria-live="polite">
-        {result ? (
-          <Notice tone={result.tone} title={result.tone === 'info' ? 'Saved' : 'Not saved'}>
-            <p>{result.text}</p>
-            {errorList.length ? (
-              <ul className="mt-1 list-disc pl-5">
-                {errorList.map(([f, m]) => (
-                  <li key={f}>{m}</li>
-                ))}
-              </ul>
-            ) : null}
-          </Notice>
-        ) : null}
-      </div>
+      <ResultNotice result={result} okTitle="Saved" failTitle="Not saved" errors={errorList.map(([f, m]) => ({ key: f, message: m }))} />
     </form>
   );
 }
