@@ -2,6 +2,7 @@
 import Link from 'next/link';
 import { usePathname } from 'next/navigation';
 import { useState } from 'react';
+import { UnreadBadge } from '@/components/alerts/UnreadBadge';
 import { Icon } from './Icon';
 import type { NavItem } from './nav';
 
@@ -29,6 +30,7 @@ export function SideNav({ items }: { items: NavItem[] }) {
           >
             <Icon name={it.icon} />
             {it.label}
+            {it.badge === 'alerts' ? <UnreadBadge /> : null}
           </Link>
         );
       })}
@@ -83,7 +85,10 @@ export function BottomNav({ items }: { items: NavItem[] }) {
                     active ? 'text-ice-700 dark:text-ice-300' : 'text-slate-600 dark:text-slate-400'
                   }`}
                 >
-                  <Icon name={it.icon} className="h-6 w-6" />
+                  <span className="relative">
+                    <Icon name={it.icon} className="h-6 w-6" />
+                    {it.badge === 'alerts' ? <UnreadBadge compact /> : null}
+                  </span>
                   <span className="max-w-full truncate px-1">{it.label.replace('Morning board', 'Board')}</span>
                 </Link>
               </li>

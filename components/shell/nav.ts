@@ -7,6 +7,8 @@ export interface NavItem {
   permission: Permission;
   /** Shown in the phone's bottom bar (the rest go under "More"). */
   primary?: boolean;
+  /** A live count beside the label. */
+  badge?: 'alerts';
 }
 
 // The sections of the product; each is shown to the roles that hold its permission.
@@ -19,7 +21,8 @@ export const NAV: NavItem[] = [
   { href: '/soak', label: 'Soak forecast', icon: 'curve', permission: 'simulate' },
   { href: '/oil-log', label: 'Oil log', icon: 'oil', permission: 'oil-log:write' },
   { href: '/calibration', label: 'Fit from log', icon: 'curve', permission: 'aircraft:edit' },
-  { href: '/alerts', label: 'Alerts', icon: 'alert', permission: 'org:read', primary: true },
+  { href: '/alerts', label: 'Alerts', icon: 'alert', permission: 'org:read', primary: true, badge: 'alerts' },
   { href: '/admin/users', label: 'Users', icon: 'users', permission: 'users:manage' },
+  { href: '/mail', label: 'Mail capture', icon: 'mail', permission: 'mail:view' },
   { href: '/settings', label: 'Settings', icon: 'settings', permission: 'org:read' },
 ];

@@ -4,6 +4,8 @@ import { db } from '@/models';
 import { NotFound } from '@/lib/api/errors';
 import type { OutboxStatus } from '@/models/OutboxMessage';
 import type { CapturedMail } from '@/models/CapturedMail';
+import { env } from '@/lib/env';
+import { organizationZone } from '@/lib/alerts/preferences';
 
 // The local mail capture's messages and the outbox's state, for managers of one organization.
 
@@ -112,4 +114,22 @@ export async function outboxSummary({ orgId, limit = 20 }: { orgId: number; limi
     createdAt: m.createdAt.toISOString(),
   }));
   return { counts: byStatus, recent };
+}
+
+export interface MailViewerData {
+  transport: 'smtp' | 'capture';
+  /** Times are shown in the organization's zone (its first airfield's). */
+  timeZone: string;
+  messages: CapturedSummary[];
+  outbox: Awaited<ReturnType<typeof outboxSummary>>;
+}
+
+/** Everything the mail viewer lists: captured messages, the outbox's state, where mail goes. */
+export async function mailViewerData({ orgId }: { orgId: number }): Promise<MailViewerData> {
+  return {
+    transport: env().SMTP_URL ? 'smtp' : 'capture',
+    timeZone: await organizationZone(orgId),
+    messages: await listCapturedMail({ orgId }),
+    outbox: await outboxSummary({ orgId }),
+  };
 }

@@ -8,6 +8,7 @@ import type { Role } from '@/lib/auth/permissions';
 import { aircraftDefaultsFor, shelterDefaultsFor } from './defaults';
 import { seedPlanning } from './planning';
 import { seedOilLog } from './oil';
+import { seedAlerts } from './alerts';
 
 // The invented demo scenario (data/demo/scenario.json) written into an empty database in one transaction.
 const scenarioSchema = z.object({
@@ -120,6 +121,7 @@ export async function seedDemo(now = new Date()): Promise<string> {
     }
     await seedPlanning(ctx);
     await seedOilLog(ctx);
+    await seedAlerts(ctx);
     const counts = scenario.organizations.map((o) => `${o.name}: ${o.users.length} users, ${o.airfields.length} airfields, ${o.aircraft.length} aircraft`);
     return counts.join('; ');
   });

@@ -128,7 +128,7 @@ describe('quiet hours', () => {
     const zone = 'Europe/Helsinki';
     // The pilot's quiet hours cover the evaluation time.
     const now = at(30 * MIN);
-    await models.AlertPreference.create({
+    await models.AlertPreference.upsert({
       userId: pilot.id,
       organizationId: org.id,
       quietStart: formatTime(now.getTime() - 60 * MIN, zone),
@@ -146,7 +146,7 @@ describe('quiet hours', () => {
     const d = localDateOf(zone, new Date(dep.departAt).getTime() - 24 * 3_600_000);
     const evening = new Date(zonedTimeToUtc(zone, d.year, d.month, d.day, 18, 5));
     const quietEnd = zonedTimeToUtc(zone, d.year, d.month, d.day, 19, 0);
-    await models.AlertPreference.create({ userId: manager.id, organizationId: org.id, quietStart: '17:00', quietEnd: '19:00', timeZone: zone });
+    await models.AlertPreference.upsert({ userId: manager.id, organizationId: org.id, quietStart: '17:00', quietEnd: '19:00', timeZone: zone });
     await org.update({ coldNightThresholdC: 10, coldNightNoticeAt: '18:00' });
     const r = await evaluateColdNight({ now: evening, orgIds: [org.id] });
     expect(r.heldForQuietHours).toBe(1);

@@ -18,6 +18,11 @@ export function UsersAdmin({ initial, selfId }: { initial: UserRow[]; selfId: nu
   const users = data?.users ?? initial;
   const [status, setStatus] = useState('');
 
+  async function resend(u: UserRow) {
+    const r = await sendJson('/api/tokens/invitations', 'POST', { userId: u.id });
+    setStatus(r.ok ? `A new invitation is on its way to ${u.email}. The earlier link no longer works.` : r.message);
+  }
+
   async function patch(id: number, change: { role?: Role; active?: boolean }) {
     const r = await sendJson(`/api/users/${id}`, 'PATCH', change);
     setStatus(r.ok ? 'Saved.' : r.message);
@@ -44,7 +49,14 @@ export function UsersAdmin({ initial, selfId }: { initial: UserRow[]; selfId: nu
                 <td className="px-4 py-3">
                   <div className="font-medium text-slate-900 dark:text-white">{u.name}</div>
                   <div className="text-xs text-slate-500 md:hidden">{u.email}</div>
-                  {u.mustChangePassword ? <div className="text-xs text-amber-700 dark:text-amber-300">Temporary password</div> : null}
+                  {u.mustChangePassword && u.active ? (
+                    <div className="flex flex-wrap items-center gap-x-2 text-xs text-amber-700 dark:text-amber-300">
+                      No password of their own yet
+                      <button type="button" className="min-h-8 font-semibold text-ice-800 underline dark:text-ice-200" onClick={() => resend(u)}>
+                        Send a new invitation<span className="sr-only"> to {u.name}</span>
+                      </button>
+                    </div>
+                  ) : null}
                   {!u.active ? <div className="text-xs font-semibold text-slate-600 dark:text-slate-400">Deactivated</div> : null}
                   <div className="mt-2 sm:hidden">
                     <AccessButton u={u} selfId={selfId} onToggle={() => patch(u.id, { active: !u.active })} />
@@ -92,7 +104,7 @@ function AccessButton({ u, selfId, onToggle }: { u: UserRow; selfId: number; onT
 }
 
 function AddUser({ onAdded }: { onAdded: () => void }) {
-  const [form, setForm] = useState({ name: '', email: '', role: 'pilot' as Role, temporaryPassword: '' });
+  const [form, setForm] = useState({ name: '', email: '', role: 'pilot' as Role });
   const [fields, setFields] = useState<Record<string, string>>({});
   const [status, setStatus] = useState('');
   const [pending, setPending] = useState(false);
@@ -104,9 +116,9 @@ function AddUser({ onAdded }: { onAdded: () => void }) {
     const r = await sendJson('/api/users', 'POST', form);
     setPending(false);
     if (r.ok) {
-      setStatus(`Added ${form.name}. Give them the temporary password; they choose their own at first sign-in.`);
+      setStatus(`Added ${form.name}. An invitation is on its way to ${form.email}: they choose their password with its link (valid for 7 days).`);
       setFields({});
-      setForm({ name: '', email: '', role: 'pilot', temporaryPassword: '' });
+      setForm({ name: '', email: '', role: 'pilot' });
       onAdded();
     } else {
       setFields(r.fields);
@@ -116,7 +128,7 @@ function AddUser({ onAdded }: { onAdded: () => void }) {
 
   return (
     <Card aria-labelledby="add-user-h">
-      <h2 id="add-user-h" className="text-lg font-semibold">Add a user</h2>
+      <h2 id="add-user-h" className="text-lg font-semibold">Invite a user</h2>
       <form onSubmit={onSubmit} className="mt-4 space-y-4" noValidate>
         <TextField id="new-name" name="name" label="Name" value={form.name} onChange={set('name')} error={fields.name} autoComplete="off" />
         <TextField id="new-email" name="email" label="E-mail" type="email" value={form.email} onChange={set('email')} error={fields.email} autoComplete="off" />
@@ -125,8 +137,8 @@ function AddUser({ onAdded }: { onAdded: () => void }) {
             <option key={r} value={r}>{ROLE_LABEL[r]}</option>
           ))}
         </SelectField>
-        <TextField id="new-password" name="temporaryPassword" label="Temporary password" type="text" value={form.temporaryPassword} onChange={set('temporaryPassword')} error={fields.temporaryPassword} hint="At least 10 characters. They will be asked to change it." autoComplete="off" />
-        <Button type="submit" disabled={pending} className="w-full">{pending ? 'Adding…' : 'Add user'}</Button>
+        <p className="text-xs text-slate-600 dark:text-slate-400">Thawline e-mails them an invitation with a single-use link to choose their own password.</p>
+        <Button type="submit" disabled={pending} className="w-full">{pending ? 'Inviting…' : 'Invite user'}</Button>
         <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">{status}</p>
       </form>
     </Card>
