@@ -36,7 +36,7 @@ function FollowPosition({ pos }: { pos: [number, number] | null }) {
 export function LocationPicker({ latitude, longitude, onPick, tileUrl, tileAttribution, fallbackCenter = [55, 15] }: Props) {
   const pos: [number, number] | null =
     latitude !== null && longitude !== null && Math.abs(latitude) <= 90 && Math.abs(longitude) <= 180 ? [latitude, longitude] : null;
-  const icon = useMemo(() => L.divIcon({ className: 'tl-mk-icon', html: '<div class="tl-pick"><span></span></div>', iconSize: [0, 0], iconAnchor: [0, 0] }), []);
+  const icon = useMemo(() => L.divIcon({ className: 'tl-mk-icon', html: '<div class="tl-pick"><span></span></div>', iconSize: [32, 32], iconAnchor: [16, 16] }), []);
   return (
     <MapContainer center={pos ?? fallbackCenter} zoom={pos ? 7 : 4} minZoom={2} className="tl-map h-64 w-full" aria-label="Pick the airfield's position on the map">
       <OutlineBasemap />

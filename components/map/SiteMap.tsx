@@ -63,7 +63,7 @@ function FitToAirfields({ airfields }: { airfields: MapAirfield[] }) {
 function AirfieldMarker({ a, unit }: { a: MapAirfield; unit: TempUnit }) {
   const content = { ident: a.ident, lowC: a.lowC, unit, readiness: a.readiness, stale: a.forecastStatus !== 'fresh' };
   const html = markerHtml(content);
-  const icon = useMemo(() => L.divIcon({ className: 'tl-mk-icon', html, iconSize: [0, 0], iconAnchor: [0, 0], popupAnchor: [0, -42] }), [html]);
+  const icon = useMemo(() => L.divIcon({ className: 'tl-mk-icon', html, iconSize: [24, 24], iconAnchor: [12, 12], popupAnchor: [0, -44] }), [html]);
   const title = markerTitle(a.name, content);
   return (
     <Marker position={[a.latitude, a.longitude]} icon={icon} title={title} alt={title} keyboard riseOnHover>
