@@ -102,6 +102,26 @@ export function sampleStates(plan: Plan, times: ArrayLike<number>, outsideOut?: 
       o2[j] = x2;
       oT[j] = tout0 + slope * (tn - segT0);
       j++;
+      // A run of outputs at the same spacing (the usual grid): count it, then step without checks.
+      let k = j;
+      while (k < N && times[k] <= t1 && times[k] - times[k - 1] === lastDt) k++;
+      if (k > j) {
+        let tout = tout0 + slope * (t - segT0);
+        const dTout = slope * lastDt;
+        for (; j < k; j++) {
+          const y0 = f00 * x0 + f01 * x1 + f02 * x2 + p0 * tout + q0;
+          const y1 = f10 * x0 + f11 * x1 + f12 * x2 + p1 * tout + q1;
+          x2 = f20 * x0 + f21 * x1 + f22 * x2 + p2 * tout + q2;
+          x0 = y0;
+          x1 = y1;
+          tout += dTout;
+          o0[j] = x0;
+          o1[j] = x1;
+          o2[j] = x2;
+          oT[j] = tout;
+        }
+        t = times[k - 1];
+      }
     }
   }
   const lastSegment = segs[segs.length - 1];
