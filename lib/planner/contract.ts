@@ -58,6 +58,7 @@ export function toPlanRequest(input: PlanInput): PlanRequest {
     tariff: p.tariff?.map((t) => ({ fromMs: ms(t.from), toMs: ms(t.to), pricePerKWh: t.pricePerKWh })),
     flatPricePerKWh: p.flatPricePerKWh,
     slotMinutes: p.slotMinutes,
+    switchOnStepMinutes: p.switchOnStepMinutes,
     earliestSwitchOnMs: p.earliestSwitchOn !== undefined ? ms(p.earliestSwitchOn) : undefined,
     mode: p.mode,
     nowMs: p.now !== undefined ? ms(p.now) : undefined,

@@ -36,6 +36,8 @@ import {
 } from './types';
 
 export const DEFAULT_SLOT_MINUTES = 5;
+/** Switch-on times are set to the minute (timers and relays take minutes); slots stay the on/off granularity. */
+export const DEFAULT_SWITCH_ON_STEP_MINUTES = 1;
 export const DEFAULT_BASELINE_HOURS = [1, 2, 3, 4] as const;
 export const MAX_SLOTS = 2000;
 /** Numerical margin on every constraint so the re-simulated plan meets it, not just the affine prediction, K. */
@@ -83,6 +85,8 @@ interface Problem {
   cost: Float64Array;
   /** The objective: cost plus a 1e-9 share of energy, so free periods still prefer less energy. */
   objective: Float64Array;
+  /** The energy tie-break per kWh inside the objective. */
+  tie: number;
   kWh: Float64Array;
   pricing: Pricing;
   atT: OilResponseAt;
@@ -219,6 +223,66 @@ function floorResponses(p: Problem, times: number[]): OilResponseAt[] {
   return times.length ? oilResponses(p.model, { node: p.req.heater.node, slots: p.slots, times }) : [];
 }
 
+/** Cost in the objective's units (cost plus the energy tie-break) of intervals. */
+function objectiveOf(p: Problem, iv: readonly Interval[]): number {
+  const P = p.req.heater.powerW;
+  const tie = p.tie;
+  return iv.reduce((s, i) => {
+    const e = kWhOf(P, i.fromMs, i.toMs);
+    return s + p.pricing.energyCost(i.fromMs, i.toMs, e) + tie * e;
+  }, 0);
+}
+
+/**
+ * The switch-on of one slot at a finer step (`stepMs`, counted back from the slot's end) instead of
+ * the slot's start. Two candidates: the LP optimum's full slots with its fractional slot on over its
+ * last part, and the on/off optimum with its slack taken out of the first slot of its dearest run.
+ * Each tail [end − m·step, end] is priced by one more adjoint pass (exact), the shortest that meets
+ * the target is taken, and the cheaper candidate wins if it beats the on/off plan (null otherwise).
+ */
+function finerSwitchOn(p: Problem, on: Uint8Array, need: number, stepMs: number): { intervals: Interval[]; predictedC: number } | null {
+  const { slots, a } = p;
+  const K = slots.length;
+  const P = p.req.heater.powerW;
+  const candidates: { full: Uint8Array; k: number }[] = [];
+  const relax = coverRelaxation(a, p.objective, need);
+  if (relax.feasible) {
+    const f = relax.x.findIndex((x) => x > 1e-12 && x < 1 - 1e-12);
+    if (f >= 0) candidates.push({ full: Uint8Array.from(relax.x, (x) => (x >= 1 - 1e-12 ? 1 : 0)), k: f });
+  }
+  let worst = -1;
+  for (let k = 0; k < K; k++) {
+    if (on[k] && (k === 0 || !on[k - 1]) && a[k] > 0 && (worst < 0 || p.objective[k] / a[k] > p.objective[worst] / a[worst])) worst = k;
+  }
+  if (worst >= 0) candidates.push({ full: on, k: worst });
+  if (!candidates.length) return null;
+  // Every tail of every candidate slot, in one pass.
+  const tails: Interval[] = [];
+  const first: number[] = [];
+  for (const c of candidates) {
+    first.push(tails.length);
+    const { fromMs, toMs } = slots[c.k];
+    for (let m = 1; toMs - (m - 1) * stepMs > fromMs + 1e-6; m++) tails.push({ fromMs: Math.max(fromMs, toMs - m * stepMs), toMs });
+  }
+  const [r] = oilResponses(p.model, { node: p.req.heater.node, slots: tails, times: [p.T] });
+  const gridCost = objectiveOf(p, intervalsOf(slots, on));
+  let best: { intervals: Interval[]; cost: number; predictedC: number } | null = null;
+  candidates.forEach((c, ci) => {
+    let rest = r.baseOilC;
+    for (let j = 0; j < K; j++) if (c.full[j] && j !== c.k) rest += a[j];
+    const end = ci + 1 < candidates.length ? first[ci + 1] : tails.length;
+    for (let t = first[ci]; t < end; t++) {
+      const oil = rest + P * r.perWattK[t];
+      if (oil < p.targetC + MARGIN_K) continue;
+      const iv = mergeIntervals([...slots.filter((_, j) => c.full[j] && j !== c.k), tails[t]]);
+      const cost = objectiveOf(p, iv);
+      if (cost < gridCost && (!best || cost < best.cost)) best = { intervals: iv, cost, predictedC: oil };
+      return;
+    }
+  });
+  return best;
+}
+
 /** Plans the heat for one departure. Throws PlanInputError (naming the field) for requests it cannot plan. */
 export function planDeparture(req: PlanRequest): PlanResult {
   validate(req);
@@ -246,7 +310,7 @@ export function planDeparture(req: PlanRequest): PlanResult {
   const uncertainty = oilUncertainty(model, atT, { departureMs: T, issuedAtMs, correlationHours: req.uncertainty?.correlationHours });
   const z = req.targetProbability !== undefined ? Math.max(0, normalQuantile(req.targetProbability)) : 0;
   const targetC = req.readyC + z * uncertainty.sigmaOilK;
-  const p: Problem = { req, model, T, earliest, slots, a, cost, objective, kWh, pricing, atT, targetC };
+  const p: Problem = { req, model, T, earliest, slots, a, cost, objective, tie, kWh, pricing, atT, targetC };
 
   // The floor: where it is enforced from, and the slot ends where it can bind.
   const floorC = req.floorC;
@@ -324,15 +388,34 @@ export function planDeparture(req: PlanRequest): PlanResult {
     }
     status = !meetsRows(rows, allOn) ? 'short' : on.some((v) => v) ? 'warming' : 'ready';
   }
+  const stepMs = Math.min(slotMinutes, req.switchOnStepMinutes ?? DEFAULT_SWITCH_ON_STEP_MINUTES) * 60_000;
+  let heaterOn = status === 'ready' ? [] : intervalsOf(slots, on);
+  let predictedOilAtDepartureC = atT.baseOilC + sumOn(a, on);
   if (req.mode === 'single-start' && status !== 'short') {
     const mReady = trailingBlock(K, rows.slice(0, 1));
     if (mReady > 0) latestSwitchOnAtMs = latestSwitchOn(p, slots[K - mReady].fromMs, slots[K - mReady].toMs);
+    // The timer's switch-on at the finer step: the latest step at or before the exact time, unless the floor wants the block earlier.
+    const onSlots = sumOn(allOn, on);
+    if (latestSwitchOnAtMs !== undefined && onSlots === mReady && stepMs < slotMinutes * 60_000) {
+      const stepped = Math.max(earliest, T - Math.ceil((T - latestSwitchOnAtMs) / stepMs - 1e-9) * stepMs);
+      if (stepped > heaterOn[0].fromMs) {
+        heaterOn = [{ fromMs: stepped, toMs: T }];
+        const [r] = oilResponses(model, { node: req.heater.node, slots: heaterOn, times: [T] });
+        predictedOilAtDepartureC = r.perWattK.reduce((x, w) => x + w * P, r.baseOilC);
+      }
+    }
+  }
+  if (req.mode === 'least-cost' && status === 'warming' && floorC === undefined && stepMs < slotMinutes * 60_000) {
+    const fine = finerSwitchOn(p, on, rows[0].need, stepMs);
+    if (fine) {
+      heaterOn = fine.intervals;
+      predictedOilAtDepartureC = fine.predictedC;
+      if (optimality) optimality = { ...optimality, switchOn: 'finer-step', gapToLpBound: optimality.lpBound > 0 ? (objectiveOf(p, heaterOn) - optimality.lpBound) / optimality.lpBound : 0 };
+    }
   }
 
-  const heaterOn = status === 'ready' ? [] : intervalsOf(slots, on);
   const planned = withHeater(model, req.heater, heaterOn);
   const oilAtDepartureC = oilAt(planned, T);
-  const predictedOilAtDepartureC = atT.baseOilC + sumOn(a, on);
   const energyKWh = heaterOn.reduce((s, i) => s + kWhOf(P, i.fromMs, i.toMs), 0);
   const planCost = heaterOn.reduce((s, i) => s + pricing.energyCost(i.fromMs, i.toMs, kWhOf(P, i.fromMs, i.toMs)), 0);
 

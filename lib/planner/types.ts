@@ -32,6 +32,12 @@ export interface PlanRequest {
   flatPricePerKWh?: number;
   /** The heater control's granularity, minutes (default 5). Slots end at departure and step back from there. */
   slotMinutes?: number;
+  /**
+   * The step a switch-on time may be set to inside a slot, minutes (default 1; equal to slotMinutes
+   * for a pure slot grid). Least-cost plans without a floor use it for their one marginal slot;
+   * single-start plans for the timer's switch-on.
+   */
+  switchOnStepMinutes?: number;
   /** Default: the later of the model start (the shutdown) and `nowMs`. */
   earliestSwitchOnMs?: number;
   mode: PlanMode;
@@ -103,16 +109,19 @@ export interface Uncertainty {
 }
 
 export interface Optimality {
+  /** How the on/off-per-slot plan was found. */
   method: 'branch-and-bound' | 'label-dp' | 'lp-rounding';
+  /** 'finer-step': one slot's switch-on was then moved inside the slot at switchOnStepMinutes, re-simulated. */
+  switchOn?: 'finer-step';
   /**
    * A lower bound from the continuous relaxation (slots may be fractionally on), in the
    * objective's units (cost, or kWh when no price is given): with no floor it is the relaxation's
    * optimum; with a floor, the departure-only relaxation (the floor can only add cost).
    */
   lpBound: number;
-  /** (plan − lpBound) / lpBound: what the slot granularity costs. */
+  /** (plan − lpBound) / lpBound: what the granularity costs (a finer switch-on can take it slightly below 0). */
   gapToLpBound: number;
-  /** Proven bound on (plan − best on-off plan) / plan. */
+  /** Proven bound on (on/off plan − best on/off-per-slot plan) / on/off plan. */
   certifiedGap: number;
   nodes?: number;
 }

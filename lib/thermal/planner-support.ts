@@ -13,7 +13,7 @@
 // share its cached discretisations, so the values agree with heaterResponse to rounding.
 import { discretise, type Discretisation } from './discretise';
 import { sampleStates } from './integrate';
-import { compile, nodeIndex, type Segment } from './plan';
+import { compile, nodeIndex } from './plan';
 import type { HeaterSlot } from './response';
 import type { NodeName, SoakModel } from './types';
 
@@ -46,21 +46,10 @@ function stepSeconds(ta: number, tb: number): number {
   return Math.round((tb - ta) * 1000) / 1e6;
 }
 
-interface StepRec {
-  seg: Segment;
-  ta: number;
-  tb: number;
-  /** Index of the outside point at or before the segment start (−1: before the first point). */
-  oi: number;
-  d: Discretisation;
-  /** λᵀ-independent parts: Γ0·g and Γ1·g (the outside's input directions). */
-  g0: Float64Array;
-  g1: Float64Array;
-}
-
 /**
  * The oil's sensitivities at each of `times` to heater power per slot (on `node`) and to the outside
  * forecast, for the model as given. One compile, one forward list of steps, one backward pass per time.
+ * Flat typed arrays throughout: the planner calls this once per aircraft and per floor row.
  */
 export function oilResponses(
   model: SoakModel,
@@ -70,7 +59,8 @@ export function oilResponses(
   const ni = nodeIndex(plan, opts.node);
   if (ni < 0) throw new Error(`the model has no "${opts.node}" node`);
   const n = plan.n;
-  const clamp = (t: number) => Math.min(Math.max(t, plan.startMs), plan.endMs);
+  const t0 = plan.startMs;
+  const clamp = (t: number) => Math.min(Math.max(t, t0), plan.endMs);
   const K = opts.slots.length;
   const from = new Float64Array(K);
   const to = new Float64Array(K);
@@ -79,14 +69,27 @@ export function oilResponses(
     to[k] = clamp(opts.slots[k].toMs);
   }
   const times = opts.times.map(clamp);
-  const last = Math.max(plan.startMs, ...times);
-  const stops = Array.from(new Set([...from, ...to, ...times]))
-    .filter((t) => t > plan.startMs && t <= last)
-    .sort((a, b) => a - b);
+  let last = t0;
+  for (const t of times) if (t > last) last = t;
+  const raw = new Float64Array(2 * K + times.length);
+  raw.set(from, 0);
+  raw.set(to, K);
+  raw.set(times, 2 * K);
+  raw.sort();
+  const stops: number[] = [];
+  for (const t of raw) if (t > t0 && t <= last && t !== stops[stops.length - 1]) stops.push(t);
 
   // Forward: the steps up to the last evaluation time.
   const out = model.outside;
-  const steps: StepRec[] = [];
+  const cap = plan.segs.length + stops.length + 1;
+  const ta = new Float64Array(cap);
+  const tb = new Float64Array(cap);
+  const oiOf = new Int32Array(cap);
+  const pinned = new Uint8Array(cap);
+  const ds: Discretisation[] = [];
+  const g0 = new Float64Array(cap * n);
+  const g1 = new Float64Array(cap * n);
+  let S = 0;
   let j = 0;
   let oi = -1;
   for (const seg of plan.segs) {
@@ -98,34 +101,47 @@ export function oilResponses(
       let tn = j < stops.length && stops[j] < seg.t1 ? stops[j] : seg.t1;
       if (tn > last) tn = last;
       const d = discretise(seg.sys, stepSeconds(t, tn));
-      const g0 = new Float64Array(n);
-      const g1 = new Float64Array(n);
       for (let r = 0; r < n; r++) {
+        let x = 0;
+        let y = 0;
         for (let m = 0; m < n; m++) {
-          g0[r] += d.gamma0[r * n + m] * seg.g[m];
-          g1[r] += d.gamma1[r * n + m] * seg.g[m];
+          x += d.gamma0[r * n + m] * seg.g[m];
+          y += d.gamma1[r * n + m] * seg.g[m];
         }
+        g0[S * n + r] = x;
+        g1[S * n + r] = y;
       }
-      steps.push({ seg, ta: t, tb: tn, oi, d, g0, g1 });
+      ta[S] = t;
+      tb[S] = tn;
+      oiOf[S] = oi;
+      pinned[S] = t === seg.t0 && seg.pin === seg.pin ? 1 : 0;
+      ds.push(d);
+      S++;
       t = tn;
     }
   }
-  // Which slots cover each step (slots may overlap in general): steps are sorted, so each slot
-  // finds its first step by bisection and runs to its end.
-  const cover: number[][] = steps.map(() => []);
-  for (let k = 0; k < K; k++) {
-    if (!(to[k] > from[k])) continue;
+  /** First step starting at or after t (steps are sorted and tile [start, last]). */
+  const stepFrom = (t: number) => {
     let lo = 0;
-    let hi = steps.length;
+    let hi = S;
     while (lo < hi) {
       const mid = (lo + hi) >> 1;
-      if (steps[mid].ta < from[k]) lo = mid + 1;
+      if (ta[mid] < t) lo = mid + 1;
       else hi = mid;
     }
-    for (let i = lo; i < steps.length && steps[i].tb <= to[k]; i++) cover[i].push(k);
+    return lo;
+  };
+  // Which slots cover each step, compressed by step (slots may overlap in general).
+  const firstStep = new Int32Array(K);
+  const coverStart = new Int32Array(S + 1);
+  for (let k = 0; k < K; k++) {
+    firstStep[k] = to[k] > from[k] ? stepFrom(from[k]) : S;
+    for (let i = firstStep[k]; i < S && tb[i] <= to[k]; i++) coverStart[i + 1]++;
   }
-  const endIndex = new Map<number, number>();
-  steps.forEach((s, i) => endIndex.set(s.tb, i));
+  for (let i = 0; i < S; i++) coverStart[i + 1] += coverStart[i];
+  const coverIdx = new Int32Array(coverStart[S]);
+  const fill = coverStart.slice(0, S);
+  for (let k = 0; k < K; k++) for (let i = firstStep[k]; i < S && tb[i] <= to[k]; i++) coverIdx[fill[i]++] = k;
 
   const sortedTimes = Array.from(new Set(times)).sort((a, b) => a - b);
   const baseStates = sampleStates(plan, sortedTimes)[plan.iO];
@@ -141,14 +157,8 @@ export function oilResponses(
   const tmp = new Float64Array(n);
   const heated = plan.iE >= 0 ? [plan.iO, plan.iE] : [plan.iO];
   const H = heated.length;
-  // Steps that open a slot, per step index.
-  const opens: number[][] = steps.map(() => []);
-  const startIndex = new Map<number, number>();
-  steps.forEach((s, i) => startIndex.set(s.ta, i));
-  for (let k = 0; k < K; k++) {
-    const i = to[k] > from[k] ? startIndex.get(from[k]) : undefined;
-    if (i !== undefined) opens[i].push(k);
-  }
+  /** λ at each step's start (after the pin), per time. */
+  const lamAt = new Float64Array(S * n);
 
   return times.map((T) => {
     const perWattK = new Float64Array(K);
@@ -156,35 +166,45 @@ export function oilResponses(
     const coStateAtSlotStart = new Float64Array(K * H);
     lam.fill(0);
     lam[plan.iO] = 1;
-    const endI = T <= plan.startMs ? -1 : endIndex.get(T)!;
+    // The step ending at T (T is a stop, so a step ends there exactly).
+    let endI = -1;
+    if (T > t0) {
+      let lo = 0;
+      let hi = S - 1;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if (tb[mid] < T) lo = mid + 1;
+        else hi = mid;
+      }
+      endI = lo;
+    }
     for (let i = endI; i >= 0; i--) {
-      const s = steps[i];
-      const d = s.d;
+      const d = ds[i];
       // Heater slots: Γ0·e_node / C per watt.
-      const on = cover[i];
-      if (on.length) {
+      if (coverStart[i + 1] > coverStart[i]) {
         let v = 0;
         for (let r = 0; r < n; r++) v += lam[r] * d.gamma0[r * n + ni];
         v *= invC;
-        for (const k of on) perWattK[k] += v;
+        for (let c = coverStart[i]; c < coverStart[i + 1]; c++) perWattK[coverIdx[c]] += v;
       }
       // Outside: α = λᵀ·Γ0·g multiplies Tout at the step start, β = λᵀ·Γ1·g its slope (K/s).
       let alpha = 0;
       let beta = 0;
       for (let r = 0; r < n; r++) {
-        alpha += lam[r] * s.g0[r];
-        beta += lam[r] * s.g1[r];
+        alpha += lam[r] * g0[i * n + r];
+        beta += lam[r] * g1[i * n + r];
       }
-      if (s.oi < 0) perOutsideK[0] += alpha;
-      else if (s.oi + 1 >= out.length) perOutsideK[out.length - 1] += alpha;
+      const o = oiOf[i];
+      if (o < 0) perOutsideK[0] += alpha;
+      else if (o + 1 >= out.length) perOutsideK[out.length - 1] += alpha;
       else {
-        const p = out[s.oi];
-        const q = out[s.oi + 1];
+        const p = out[o];
+        const q = out[o + 1];
         const span = q.atMs - p.atMs;
-        const u = (s.ta - p.atMs) / span;
-        const ds = 1000 / span; // ∂slope(K/s)/∂(q − p)
-        perOutsideK[s.oi] += alpha * (1 - u) - beta * ds;
-        perOutsideK[s.oi + 1] += alpha * u + beta * ds;
+        const u = (ta[i] - p.atMs) / span;
+        const dsl = 1000 / span; // ∂slope(K/s)/∂(q − p)
+        perOutsideK[o] += alpha * (1 - u) - beta * dsl;
+        perOutsideK[o + 1] += alpha * u + beta * dsl;
       }
       // λ_a = Φᵀ·λ_b.
       for (let m = 0; m < n; m++) {
@@ -193,14 +213,18 @@ export function oilResponses(
         tmp[m] = v;
       }
       lam.set(tmp);
-      if (s.ta === s.seg.t0 && s.seg.pin === s.seg.pin) lam[plan.iS] = 0;
-      for (const k of opens[i]) for (let h = 0; h < H; h++) coStateAtSlotStart[k * H + h] = lam[heated[h]];
+      if (pinned[i]) lam[plan.iS] = 0;
+      for (let m = 0; m < n; m++) lamAt[i * n + m] = lam[m];
+    }
+    for (let k = 0; k < K; k++) {
+      const i = firstStep[k];
+      if (i <= endI) for (let h = 0; h < H; h++) coStateAtSlotStart[k * H + h] = lamAt[i * n + heated[h]];
     }
     let uniform = 0;
     for (let i = 0; i < out.length; i++) uniform += perOutsideK[i];
     if (shelterFollowsOutside) {
       // x0[shelter] = outside at the start, linear in the two points around it.
-      const w = outsideWeights(out, plan.startMs);
+      const w = outsideWeights(out, t0);
       for (const [i, wi] of w) perOutsideK[i] += lam[plan.iS] * wi;
       uniform += lam[plan.iS];
     }

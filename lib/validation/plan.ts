@@ -35,6 +35,8 @@ export const planSchema = z.strictObject({
     error: (iss) => (iss.input === undefined ? 'Required: "least-cost" or "single-start".' : `Must be "least-cost" or "single-start", not ${JSON.stringify(iss.input)}.`),
   }),
   slotMinutes: finiteNumber(1, 240, 'a number of minutes').optional(),
+  /** The step a switch-on may be set to inside a slot (default 1 minute; = slotMinutes for a pure slot grid). */
+  switchOnStepMinutes: finiteNumber(0.1, 240, 'a number of minutes').optional(),
   earliestSwitchOn: iso.optional(),
   now: iso.optional(),
   /** When the forecast was issued (default: now, else start), for its error's lead time. */

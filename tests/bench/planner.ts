@@ -79,13 +79,21 @@ export async function benchPlanner(): Promise<string[]> {
   let t0 = performance.now();
   let plans: PlanResult[] = reqs.map(planDeparture);
   const cold = performance.now() - t0;
-  t0 = performance.now();
-  plans = reqs.map(planDeparture);
-  const warm = performance.now() - t0;
+  // Warm: the best of five runs, wall clock and this process's CPU time (the machine may be shared).
+  let warm = Infinity;
+  let warmCpu = Infinity;
+  for (let rep = 0; rep < 5; rep++) {
+    const c0 = process.cpuUsage();
+    t0 = performance.now();
+    plans = reqs.map(planDeparture);
+    warm = Math.min(warm, performance.now() - t0);
+    const c = process.cpuUsage(c0);
+    warmCpu = Math.min(warmCpu, (c.user + c.system) / 1000);
+  }
   const statuses = plans.reduce<Record<string, number>>((s, p) => ((s[p.status] = (s[p.status] ?? 0) + 1), s), {});
   lines.push(
-    `planner: ${AIRCRAFT} aircraft × one night, 5-min slots, three-period tariff: ${ms(cold)} cold, ${ms(warm)} warm ` +
-      `(${(warm / AIRCRAFT).toFixed(2)} ms each; goal: the fleet under 200 ms) — ${Object.entries(statuses).map(([k, v]) => `${v} ${k}`).join(', ')}`,
+    `planner: ${AIRCRAFT} aircraft × one night, 5-min slots, three-period tariff: ${ms(cold)} cold (first plans compute the model's matrix exponentials), ` +
+      `${ms(warm)} warm, best of 5 (${ms(warmCpu)} CPU; ${(warm / AIRCRAFT).toFixed(2)} ms each; goal: the fleet under 200 ms) — ${Object.entries(statuses).map(([k, v]) => `${v} ${k}`).join(', ')}`,
   );
 
   // The same slot choice through the LP solver, on the same rows.
@@ -93,11 +101,14 @@ export async function benchPlanner(): Promise<string[]> {
   let tFwd = 0;
   let tBb = 0;
   let tLp = 0;
-  const lpGaps: number[] = [];
-  let maxGapInSlots = 0;
+  const gridGaps: number[] = [];
+  const planGaps: number[] = [];
+  let maxGridSlots = 0;
+  let maxPlanSlots = 0;
   let bestBbVsLpRound = 0;
   let worstBbVsLpRound = -Infinity;
   let slots = 0;
+  let finer = 0;
   const warming: { req: PlanRequest; a: Float64Array; c: Float64Array; need: number }[] = [];
   plans.forEach((plan, i) => {
     if (plan.status !== 'warming') return;
@@ -120,9 +131,13 @@ export async function benchPlanner(): Promise<string[]> {
     t = performance.now();
     const lp = solveCoverWithLpSolver(c, [{ a, need }]);
     tLp += performance.now() - t;
-    // Gap of the plan to the LP optimum (what 5-minute on/off control costs over a continuously variable heater).
-    lpGaps.push((plan.cost! - lp.cost) / lp.cost);
-    maxGapInSlots = Math.max(maxGapInSlots, (plan.cost! - lp.cost) / Math.max(...c));
+    const slotCost = Math.max(...c);
+    // On/off per slot (the branch and bound) and the plan as answered (one switch-on to the minute).
+    gridGaps.push((bb.cost - lp.cost) / lp.cost);
+    planGaps.push((plan.cost! - lp.cost) / lp.cost);
+    maxGridSlots = Math.max(maxGridSlots, (bb.cost - lp.cost) / slotCost);
+    maxPlanSlots = Math.max(maxPlanSlots, (plan.cost! - lp.cost) / slotCost);
+    if (plan.optimality?.switchOn) finer++;
     // The LP's solution with its fractional slot rounded up, for comparison.
     let up = 0;
     lp.x.forEach((x, k) => (up += x > 1e-9 ? c[k] : 0));
@@ -133,16 +148,19 @@ export async function benchPlanner(): Promise<string[]> {
   const n = warming.length;
   lines.push(
     `planner: slot choice for the ${n} warming aircraft (${(slots / n).toFixed(0)} slots each): branch and bound ${ms(tBb)}, ` +
-      `LP solver (relaxation only) ${ms(tLp)} — ${(tLp / tBb).toFixed(0)}× faster; sensitivities (adjoint) ${ms(tResp)}; ` +
-      `planner total ${ms(warm)} vs forward heaterResponse + LP solver ${ms(tFwd + tLp)} (${((tFwd + tLp) / warm).toFixed(1)}×)`,
+      `LP solver (relaxation only) ${ms(tLp)} — ${(tLp / tBb).toFixed(0)}× faster; sensitivities: adjoint ${ms(tResp)}, forward heaterResponse ${ms(tFwd)}; ` +
+      `whole plans ${ms(warm)} vs heaterResponse + LP solver ${ms(tFwd + tLp)} (${((tFwd + tLp) / warm).toFixed(1)}×)`,
   );
-  lpGaps.sort((x, y) => x - y);
-  const q = (f: number) => lpGaps[Math.min(lpGaps.length - 1, Math.floor(f * lpGaps.length))];
+  const pct = (xs: number[], f: number) => {
+    const s = [...xs].sort((x, y) => x - y);
+    return (100 * s[Math.min(s.length - 1, Math.floor(f * s.length))]).toFixed(2);
+  };
   lines.push(
-    `planner: cost above the LP optimum (a continuously variable heater): median ${(100 * q(0.5)).toFixed(2)} %, 90th percentile ${(100 * q(0.9)).toFixed(2)} %, ` +
-      `max ${(100 * q(1)).toFixed(1)} % — the 5-minute on/off granularity, never more than ${maxGapInSlots.toFixed(2)} of one slot's cost; ` +
-      `on/off optimum proven within ${Math.max(...plans.map((p) => p.optimality?.certifiedGap ?? 0)).toExponential(0)}; ` +
-      `plan vs the LP's solution with its fractional slot rounded up: ${(100 * bestBbVsLpRound).toFixed(2)} % to ${(100 * worstBbVsLpRound).toFixed(4)} %`,
+    `planner: cost above the LP optimum (a continuously variable heater) — on/off per 5-min slot: median ${pct(gridGaps, 0.5)} %, ` +
+      `90th pct ${pct(gridGaps, 0.9)} %, max ${pct(gridGaps, 1)} % (at most ${maxGridSlots.toFixed(2)} of one slot's cost), proven the on/off optimum to ` +
+      `${Math.max(...plans.map((p) => p.optimality?.certifiedGap ?? 0)).toExponential(0)}; as answered (${finer} plans with one switch-on to the minute): ` +
+      `median ${pct(planGaps, 0.5)} %, 90th pct ${pct(planGaps, 0.9)} %, max ${pct(planGaps, 1)} % (${maxPlanSlots.toFixed(2)} slot); ` +
+      `on/off optimum vs the LP's solution rounded up: ${(100 * bestBbVsLpRound).toFixed(2)} % to ${(100 * worstBbVsLpRound).toFixed(4)} %`,
   );
 
   // The solver's own 0/1 branch and bound for a few aircraft (it is slow on 150+ binaries).
