@@ -30,12 +30,11 @@ export interface CooldownChartProps {
   label: string;
 }
 
-const PAD = { left: 44, right: 12, top: 12 };
+const PAD = { left: 44, right: 12, top: 22 };
 const MAIN_H = 250;
 const RES_H = 96;
-const GAP = 18;
+const GAP = 24;
 const AXIS_H = 30;
-const MODEL_STYLE = ['stroke-ice-700 dark:stroke-ice-300', 'stroke-ember-600'];
 
 export function CooldownChart({ tMs, oilC, ambientC, models = [], window, points = 'dots', unit, zone, label }: CooldownChartProps) {
   const id = useId();
@@ -71,7 +70,7 @@ export function CooldownChart({ tMs, oilC, ambientC, models = [], window, points
       ticks: timeTicks(t0, t1, plotW, zone),
       oilPath: points === 'line' ? linePath(tMs, oilC, x, yC) : '',
       ambPath: ambientC ? linePath(tMs, ambientC, x, yC) : '',
-      curves: models.map((m, k) => ({ ...m, d: linePath(tMs, m.values, x, yC), cls: MODEL_STYLE[k % MODEL_STYLE.length] })),
+      curves: models.map((m) => ({ ...m, d: linePath(tMs, m.values, x, yC), cls: m === primary ? 'stroke-ice-700 dark:stroke-ice-300' : 'stroke-slate-500 dark:stroke-slate-400' })),
     };
   }, [tMs, oilC, ambientC, models, primary, points, unit, zone, W]);
 
@@ -81,7 +80,7 @@ export function CooldownChart({ tMs, oilC, ambientC, models = [], window, points
   const desc =
     `${tMs.length} readings from ${formatDayTime(g.t0, zone)} to ${formatDayTime(g.t1, zone)}; oil from ${num(toDisplayTemp(oilC[0], unit), 1)} to ${num(toDisplayTemp(oilC[oilC.length - 1], unit), 1)} ${u}` +
     (window ? `; cool-down window ${formatDayTime(window.startMs, zone)} to ${formatDayTime(window.endMs, zone)}` : '') +
-    (primary ? `; ${primary.label} fit, residuals within ±${num(g.rmse, 2)} ${unit === 'F' ? '°F' : 'K'} RMS` : '') +
+    (primary ? `; ${primary.label.toLowerCase()} fit, residuals within ±${num(g.rmse, 2)} ${unit === 'F' ? '°F' : 'K'} RMS` : '') +
     '.';
 
   return (
@@ -107,7 +106,7 @@ export function CooldownChart({ tMs, oilC, ambientC, models = [], window, points
               </text>
             </g>
           ))}
-          <text x={4} y={PAD.top + 4} dy="0.6em" className={AXIS_TEXT}>
+          <text x={PAD.left - 6} y={PAD.top - 9} textAnchor="end" className={AXIS_TEXT}>
             {u}
           </text>
           {g.ticks.map((t) => (
@@ -129,7 +128,7 @@ export function CooldownChart({ tMs, oilC, ambientC, models = [], window, points
             </g>
           )}
           {g.curves.map((c) => (
-            <path key={c.id} d={c.d} fill="none" className={c.cls} strokeWidth={c.primary ? 2.5 : 1.75} strokeDasharray={c.primary ? undefined : '6 4'} strokeLinejoin="round" />
+            <path key={c.id} d={c.d} fill="none" className={c.cls} strokeWidth={c.cls.includes('slate') ? 1.75 : 2.5} strokeDasharray={c.cls.includes('slate') ? '6 4' : undefined} strokeLinejoin="round" />
           ))}
           <rect x={PAD.left} y={PAD.top} width={g.plotW} height={MAIN_H} fill="none" className="stroke-slate-300 dark:stroke-slate-700" />
           {withRes ? (
@@ -144,7 +143,7 @@ export function CooldownChart({ tMs, oilC, ambientC, models = [], window, points
                 </g>
               ))}
               <text x={PAD.left + 4} y={g.resTop - 5} className="fill-slate-600 text-[11px] font-medium dark:fill-slate-300">
-                Residuals of the {primary!.label} fit ({unit === 'F' ? '°F' : 'K'}); band ±RMSE
+                Residuals of the {primary!.label.toLowerCase()} fit ({unit === 'F' ? '°F' : 'K'}); band ±RMSE
               </text>
               <g className="fill-ice-800 dark:fill-ice-200">
                 {tMs.map((t, i) => (
@@ -175,7 +174,7 @@ export function CooldownChart({ tMs, oilC, ambientC, models = [], window, points
           {g.curves.map((c) => (
             <li key={c.id} className="flex items-center gap-1.5">
               <svg width="22" height="8" aria-hidden="true">
-                <line x1="1" y1="4" x2="21" y2="4" className={c.cls} strokeWidth={2.5} strokeDasharray={c.primary ? undefined : '6 4'} />
+                <line x1="1" y1="4" x2="21" y2="4" className={c.cls} strokeWidth={2.5} strokeDasharray={c.cls.includes('slate') ? '6 4' : undefined} />
               </svg>
               {c.label} fit
             </li>

@@ -87,12 +87,13 @@ export function CalibrationView({ aircraft, selectedId, initialLogs, initialProf
     }
     await logs.mutate();
     setStatus('Stored. Fitting the cool-down…');
-    const fit = await sendJson<{ fit: StoredFit; log: LogRecord }>(`/api/aircraft/${aircraftId}/logs/${r.data.log.id}/fit`, 'POST', { coverOn: current?.coverOnByDefault ?? false });
+    const fit = await sendJson<{ fit: StoredFit; log: LogRecord }>(`/api/aircraft/${aircraftId}/logs/${r.data.log.id}/fit`, 'POST', { coverOn: false });
     setBusy('');
     const base = { series: r.data.preview.series, suggestion: r.data.preview.suggestion };
     if (fit.ok) {
       setActive({ ...base, log: fit.data.log, fit: fit.data.fit });
       setStatus(`Stored ${r.data.log.fileName} and fitted its cool-down.`);
+      requestAnimationFrame(() => document.getElementById('fit-h')?.scrollIntoView({ behavior: 'smooth', block: 'start' }));
     } else {
       setActive({ ...base, log: r.data.log, fit: null });
       setStatus(`Stored ${r.data.log.fileName}.`);

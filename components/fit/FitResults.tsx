@@ -120,16 +120,16 @@ export function FitResults({ aircraftId, log, series, suggestion, fit, zone, tem
             <h3 id="fit-one-h" className="font-semibold">One node (oil and engine together)</h3>
             <table className="mt-2 w-full text-sm">
               <caption className="sr-only">One-node fit: value ± one standard error</caption>
-              <tbody className="[&_td]:py-1 [&_th]:py-1 [&_th]:pr-3 [&_th]:text-left [&_th]:font-normal [&_th]:text-slate-600 dark:[&_th]:text-slate-400">
+              <tbody className="[&_td]:py-1 [&_td]:whitespace-nowrap [&_th]:py-1 [&_th]:pr-3 [&_th]:text-left [&_th]:font-normal [&_th]:text-slate-600 dark:[&_th]:text-slate-400">
                 <tr>
                   <th scope="row">Time constant τ</th>
                   <td className="tabular-nums font-semibold">{fmtEstimate(one.tauH)} h</td>
-                  <td className="text-right text-xs text-slate-500">{fmtRelative(one.tauH)}</td>
+                  <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(one.tauH)}</td>
                 </tr>
                 <tr>
                   <th scope="row">Heat loss G = C/τ{fit.coverOn ? ' (cover on)' : ''}</th>
                   <td className="tabular-nums font-semibold">{fmtEstimate(one.lossWPerK)} W/K</td>
-                  <td className="text-right text-xs text-slate-500">{fmtRelative(one.lossWPerK)}</td>
+                  <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(one.lossWPerK)}</td>
                 </tr>
                 <tr>
                   <th scope="row">{fit.surroundings === 'logged' ? 'Surroundings vs logged ambient' : 'Surroundings (constant)'}</th>
@@ -159,21 +159,21 @@ export function FitResults({ aircraftId, log, series, suggestion, fit, zone, tem
             {two?.oilLossWPerK ? (
               <table className="mt-2 w-full text-sm">
                 <caption className="sr-only">Two-node fit: value ± one standard error</caption>
-                <tbody className="[&_td]:py-1 [&_th]:py-1 [&_th]:pr-3 [&_th]:text-left [&_th]:font-normal [&_th]:text-slate-600 dark:[&_th]:text-slate-400">
+                <tbody className="[&_td]:py-1 [&_td]:whitespace-nowrap [&_th]:py-1 [&_th]:pr-3 [&_th]:text-left [&_th]:font-normal [&_th]:text-slate-600 dark:[&_th]:text-slate-400">
                   <tr>
                     <th scope="row">Oil loss</th>
                     <td className="tabular-nums font-semibold">{fmtEstimate(two.oilLossWPerK)} W/K</td>
-                    <td className="text-right text-xs text-slate-500">{fmtRelative(two.oilLossWPerK)}</td>
+                    <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.oilLossWPerK)}</td>
                   </tr>
                   <tr>
                     <th scope="row">Engine loss</th>
                     <td className="tabular-nums font-semibold">{fmtEstimate(two.engineLossWPerK!)} W/K</td>
-                    <td className="text-right text-xs text-slate-500">{fmtRelative(two.engineLossWPerK!)}</td>
+                    <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.engineLossWPerK!)}</td>
                   </tr>
                   <tr>
                     <th scope="row">Oil–engine coupling</th>
                     <td className="tabular-nums font-semibold">{fmtEstimate(two.couplingWPerK!)} W/K</td>
-                    <td className="text-right text-xs text-slate-500">{fmtRelative(two.couplingWPerK!)}</td>
+                    <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.couplingWPerK!)}</td>
                   </tr>
                   <tr>
                     <th scope="row">τ fast · slow</th>

@@ -40,7 +40,7 @@ export function UploadForm({ aircraftId, onPreview, onError }: { aircraftId: num
 
   return (
     <form
-      className="grid gap-4 sm:grid-cols-[minmax(0,1fr)_12rem_auto] sm:items-end"
+      className="grid gap-4 sm:grid-cols-[minmax(0,1fr)_12rem_auto] sm:items-start"
       onSubmit={(e) => {
         e.preventDefault();
         void read(file, unit);
@@ -90,7 +90,7 @@ export function UploadForm({ aircraftId, onPreview, onError }: { aircraftId: num
         <option value="C">°C</option>
         <option value="F">°F</option>
       </SelectField>
-      <Button type="submit" variant="secondary" disabled={pending || !file}>
+      <Button type="submit" variant="secondary" disabled={pending || !file} className="sm:mt-6">
         {pending ? 'Reading…' : 'Read again'}
       </Button>
     </form>

@@ -4,9 +4,16 @@ import type { Estimate } from '@/lib/fit/cooldown';
 
 const MINUS = '\u2212';
 
-/** "1.88 ± 0.01" with digits chosen so the uncertainty shows two significant figures at most. */
+/** "1.879 ± 0.010": the uncertainty to two significant figures when it starts with 1 or 2, else one (value to match). */
 export function fmtEstimate(e: Estimate, digits?: number): string {
-  const d = digits ?? (Number.isFinite(e.sigma) && e.sigma > 0 ? Math.min(4, Math.max(0, 1 - Math.floor(Math.log10(e.sigma)))) : 2);
+  let d = digits;
+  if (d === undefined) {
+    if (Number.isFinite(e.sigma) && e.sigma > 0) {
+      const mag = Math.floor(Math.log10(e.sigma));
+      const sig = e.sigma / Math.pow(10, mag) < 3 ? 2 : 1;
+      d = Math.min(5, Math.max(0, sig - 1 - mag));
+    } else d = 2;
+  }
   const v = e.value.toFixed(d).replace('-', MINUS);
   return Number.isFinite(e.sigma) ? `${v} ± ${e.sigma.toFixed(d)}` : `${v} (uncertainty unknown)`;
 }

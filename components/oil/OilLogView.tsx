@@ -10,7 +10,7 @@ import { OilLevelChart } from '@/components/charts/OilLevelChart';
 import { BladesScatter } from '@/components/charts/BladesScatter';
 import { fmtTemp } from '@/components/aircraft/format';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
-import { formatDateTime, formatDay } from '@/lib/time';
+import { formatDateTime, formatDay, formatTime } from '@/lib/time';
 import { USUAL_MAX_BLADE_TURNS } from '@/lib/oil';
 import type { TempUnit, VolumeUnit } from '@/lib/units';
 import type { OilAircraftChoice, OilLog } from '@/lib/data/oil';
@@ -164,31 +164,34 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
                 {status}
               </p>
             </div>
-            <div className="mt-3 max-h-[32rem] overflow-auto">
+            <div className="relative mt-3 max-h-[32rem] overflow-auto">
               <table className="w-full text-left text-sm">
                 <caption className="sr-only">Oil checks of {log.aircraft.registration}, newest first</caption>
                 <thead className="sticky top-0 bg-slate-50 text-xs uppercase tracking-wide text-slate-600 dark:bg-slate-800 dark:text-slate-400">
                   <tr>
-                    <th scope="col" className="px-4 py-2">When</th>
-                    <th scope="col" className="px-3 py-2 text-right">At 15 °C</th>
+                    <th scope="col" className="py-2 pl-4 pr-2">When</th>
+                    <th scope="col" className="px-2 py-2 text-right">At 15 °C</th>
                     <th scope="col" className="hidden px-3 py-2 text-right sm:table-cell">As read</th>
-                    <th scope="col" className="px-3 py-2 text-right">Oil / outside</th>
+                    <th scope="col" className="px-2 py-2 text-right">Oil / outside</th>
                     <th scope="col" className="hidden px-3 py-2 text-right md:table-cell">Turns</th>
                     <th scope="col" className="hidden px-3 py-2 text-right md:table-cell">Engine h</th>
                     <th scope="col" className="hidden px-3 py-2 lg:table-cell">By · notes</th>
-                    <th scope="col" className="px-4 py-2 text-right"><span className="sr-only">Actions</span></th>
+                    <th scope="col" className="py-2 pl-1 pr-3 text-right"><span className="sr-only">Actions</span></th>
                   </tr>
                 </thead>
                 <tbody className="divide-y divide-slate-200 dark:divide-slate-800">
                   {log.checks.map((k) => (
                     <tr key={k.id} className="align-top">
-                      <td className="whitespace-nowrap px-4 py-2">{formatDateTime(Date.parse(k.checkedAt), zone)}</td>
-                      <td className="whitespace-nowrap px-3 py-2 text-right font-semibold tabular-nums">
+                      <td className="py-2 pl-4 pr-2">
+                        <span className="whitespace-nowrap">{formatDay(Date.parse(k.checkedAt), zone)}</span>
+                        <span className="block text-xs text-slate-500">{formatTime(Date.parse(k.checkedAt), zone)}</span>
+                      </td>
+                      <td className="whitespace-nowrap px-2 py-2 text-right font-semibold tabular-nums">
                         {fmtLevel(k.correctedL, vu)}
                         {k.addedL > 0 ? <span className="block text-xs font-normal text-ice-700 dark:text-ice-300">+{fmtLevel(k.addedL, vu, 1)} added</span> : null}
                       </td>
                       <td className="hidden whitespace-nowrap px-3 py-2 text-right tabular-nums sm:table-cell">{fmtLevel(k.levelL, vu)}</td>
-                      <td className="whitespace-nowrap px-3 py-2 text-right tabular-nums">
+                      <td className="whitespace-nowrap px-2 py-2 text-right tabular-nums">
                         {fmtTemp(k.oilTempC, tu)}
                         <span className="block text-xs text-slate-500">{fmtTemp(k.outsideTempC, tu)}</span>
                       </td>
@@ -198,7 +201,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
                         {k.author?.name ?? '—'}
                         {k.notes ? <span className="block text-xs">{k.notes}</span> : null}
                       </td>
-                      <td className="px-4 py-2 text-right">
+                      <td className="py-2 pl-1 pr-3 text-right">
                         {k.author?.id === me.id || me.canEditAircraft ? (
                           <Button variant="ghost" className="min-h-10 px-2 text-xs" onClick={() => remove('checks', k.id)}>
                             Remove<span className="sr-only"> the check of {formatDateTime(Date.parse(k.checkedAt), zone)}</span>
