@@ -7,12 +7,13 @@
 //    curve is below the floor (only those rows can bind: every a_jk ≥ 0).
 // 3. The slot choice:
 //    - least-cost, departure only: the exact on/off optimum by branch and bound over the
-//      fractional-knapsack greedy (cover.ts); the greedy is the LP's exact optimum.
-//    - least-cost with a floor: the LP solver's 0/1 programme (lp.ts), compared with its LP
-//      relaxation rounded up and thinned; the cheaper one is kept.
+//      fractional-knapsack greedy (cover.ts); the greedy is the LP's exact optimum. Then one slot
+//      may switch on part-way, to the minute (finerSwitchOn), when that is cheaper.
+//    - least-cost with a floor: the exact on/off optimum by the label DP (labels.ts), started from
+//      the departure-only optimum repaired for the floor (lp.ts roundCover).
 //    - single-start: the fewest trailing slots that meet every row (bisection on the count; the
-//      rows only grow as slots are added), and the exact continuous latest switch-on for the
-//      ready temperature (root of the re-simulated oil at departure in the switch-on time).
+//      rows only grow as slots are added), the exact continuous latest switch-on for the ready
+//      temperature (root of the re-simulated oil at departure), and the timer's switch-on to the minute.
 // 4. The plan is re-simulated through lib/thermal; with a floor, the continuous minimum is checked
 //    and any dip between slot ends becomes a new row (at most a few rounds).
 // 5. Baselines (all night, N hours before), the chance of being ready, and — when short — the fix.
