@@ -53,7 +53,7 @@ function FitToAirfields({ airfields }: { airfields: MapAirfield[] }) {
       return;
     }
     const bounds = L.latLngBounds(airfields.map((a) => [a.latitude, a.longitude] as [number, number]));
-    map.fitBounds(bounds, { padding: [70, 70], maxZoom: 7 });
+    map.fitBounds(bounds, { padding: [80, 80], maxZoom: 6 });
     // Only when the set of places changes, not on every forecast update.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [key, map]);
@@ -112,7 +112,7 @@ function AirfieldMarker({ a, unit }: { a: MapAirfield; unit: TempUnit }) {
 
 /** The outline basemap (land and borders), in its own pane under the tiles. */
 export function OutlineBasemap() {
-  const { land, borders } = outlineBasemap();
+  const { land, borders, grid } = outlineBasemap();
   return (
     <Pane name={BASEMAP_PANE} style={{ zIndex: 150 }}>
       <GeoJSON
@@ -121,6 +121,7 @@ export function OutlineBasemap() {
         attribution="Outline: Natural Earth"
         style={{ className: 'tl-basemap-land', weight: 0.8, color: '#8ea3b5', fillColor: '#f6f8fa', fillOpacity: 1 }}
       />
+      <GeoJSON data={grid} interactive={false} style={{ className: 'tl-basemap-grid', weight: 0.6, color: '#b9cad6', opacity: 0.8, fill: false }} />
       <GeoJSON data={borders} interactive={false} style={{ className: 'tl-basemap-border', weight: 0.7, color: '#9fb1c1', dashArray: '3 3', fill: false }} />
     </Pane>
   );

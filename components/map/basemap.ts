@@ -61,7 +61,19 @@ function unwrap(o: GeoJSON.Feature | GeoJSON.FeatureCollection | GeoJSON.Geometr
   return unwrapGeometry(o);
 }
 
-let cached: { land: GeoJSON.GeoJsonObject; borders: GeoJSON.GeoJsonObject } | null = null;
+/** Parallels and meridians every `step` degrees, as one multi-line (a chart's grid, for orientation offline). */
+export function graticule(step = 2): GeoJSON.MultiLineString {
+  const lines: Position[][] = [];
+  for (let lat = -80; lat <= 80; lat += step) {
+    const line: Position[] = [];
+    for (let lon = -180; lon <= 180; lon += step) line.push([lon, lat]);
+    lines.push(line);
+  }
+  for (let lon = -180; lon < 180; lon += step) lines.push([[lon, -80], [lon, 80]]);
+  return { type: 'MultiLineString', coordinates: lines };
+}
+
+let cached: { land: GeoJSON.GeoJsonObject; borders: GeoJSON.GeoJsonObject; grid: GeoJSON.GeoJsonObject } | null = null;
 
 export function outlineBasemap() {
   if (!cached) {
@@ -70,6 +82,7 @@ export function outlineBasemap() {
       land: unwrap(feature(world, world.objects.land) as unknown as GeoJSON.FeatureCollection),
       // Borders between two countries only (the coast is the land's own edge).
       borders: unwrap(mesh(world, world.objects.countries, (a, b) => a !== b) as unknown as GeoJSON.Geometry),
+      grid: graticule(2),
     };
   }
   return cached;
