@@ -9,10 +9,17 @@ import { formatTemp, type TempUnit } from '@/components/airfields/format';
 import type { AirfieldRow } from '@/lib/data/airfields';
 import type { ForecastStateView, TonightSummary } from '@/lib/data/forecasts';
 import { MapLegend } from './MapLegend';
+import type { Readiness } from './marker';
+import { ReadinessBadge } from '@/components/board/ReadinessBadge';
 import type { MapAirfield } from './SiteMap';
 import { SiteMapLazy } from './SiteMapLazy';
 
-export type AirfieldWithTonight = AirfieldRow & { tonight?: TonightSummary; forecast?: ForecastStateView };
+export type AirfieldWithTonight = AirfieldRow & {
+  tonight?: TonightSummary;
+  forecast?: ForecastStateView;
+  /** The next morning's departures here: the worst readiness and counts (null: none booked). */
+  morning?: { readiness: Readiness; departures: number; counts: Record<Readiness, number> } | null;
+};
 
 export function toMapAirfield(a: AirfieldWithTonight): MapAirfield {
   return {
@@ -26,6 +33,7 @@ export function toMapAirfield(a: AirfieldWithTonight): MapAirfield {
     lowAt: a.tonight?.low?.at ?? null,
     forecastStatus: a.forecast?.status ?? 'missing',
     ageMinutes: a.forecast?.ageMinutes ?? null,
+    readiness: a.morning?.readiness,
     shelters: a.shelters.map((s) => ({ id: s.id, name: s.name, kind: s.kind, aircraftCount: s.aircraftCount })),
   };
 }
@@ -48,7 +56,7 @@ export function SiteMapView({ initial, unit, tileUrl, tileAttribution }: Props) 
   return (
     <div className="space-y-6">
       <div className="overflow-hidden rounded-2xl border border-slate-200 shadow-sm dark:border-slate-800">
-        <SiteMapLazy airfields={airfields.map(toMapAirfield)} unit={unit} tileUrl={tileUrl} tileAttribution={tileAttribution} legend={<MapLegend />} />
+        <SiteMapLazy airfields={airfields.map(toMapAirfield)} unit={unit} tileUrl={tileUrl} tileAttribution={tileAttribution} legend={<MapLegend showReadiness={airfields.some((a) => a.morning)} />} />
       </div>
       <p role="status" aria-live="polite" className="-mt-3 text-xs text-slate-500 dark:text-slate-400">
         {error ? 'Could not update the forecasts just now; showing what was last known.' : isValidating ? 'Updating tonight’s forecasts…' : ''}
@@ -89,6 +97,12 @@ function AirfieldCard({ a, unit }: { a: AirfieldWithTonight; unit: TempUnit }) {
         <p className="mt-1 text-sm text-slate-600 dark:text-slate-400">
           {a.shelters.length} {a.shelters.length === 1 ? 'shelter' : 'shelters'} · {a.aircraftCount} aircraft
         </p>
+        {a.morning ? (
+          <p className="mt-2 flex flex-wrap items-center gap-2 text-xs text-slate-600 dark:text-slate-400">
+            <ReadinessBadge status={a.morning.readiness} />
+            {a.morning.departures} {a.morning.departures === 1 ? 'departure' : 'departures'} in the morning
+          </p>
+        ) : null}
         <p className="mt-2 text-xs text-slate-500 dark:text-slate-400">
           {f?.status === 'missing' || !f ? (
             'No forecast yet'

@@ -324,3 +324,18 @@ export async function confirmPlan({ orgId, departureId, userId, now = new Date()
   await row.update({ confirmedById: userId, confirmedAt: now, confirmedKey: row.inputsKey });
   return { ...view, confirmed: { by: 'you', at: now.toISOString() } };
 }
+
+/** For the Site map: the worst readiness of each airfield's next-morning departures, and how many there are. */
+export async function readinessByAirfield({ orgId, now = new Date(), refresh = 'never' }: { orgId: number; now?: Date; refresh?: 'never' | 'if-old' }) {
+  const board = await morningBoard({ orgId, now, refresh });
+  const out = new Map<number, { readiness: Readiness; departures: number; counts: Record<Readiness, number> }>();
+  for (const p of board.plans) {
+    if (!p.airfield) continue;
+    const cur = out.get(p.airfield.id) ?? { readiness: p.status, departures: 0, counts: { ready: 0, warming: 0, short: 0, unplanned: 0 } };
+    cur.readiness = worstReadiness([cur.readiness, p.status])!;
+    cur.departures++;
+    cur.counts[p.status]++;
+    out.set(p.airfield.id, cur);
+  }
+  return out;
+}

@@ -1,8 +1,12 @@
-// npm run bench: prints each benchmark's lines.
+// npm run bench: prints each benchmark's lines (ratios against baselines measured in the same run).
 import { benchThermal } from './thermal';
+import { benchPlanner } from './planner';
 
 async function main(): Promise<void> {
-  for (const line of await benchThermal()) console.log(line);
+  for (const bench of [benchThermal, benchPlanner]) {
+    for (const line of await bench()) console.log(line);
+    console.log('');
+  }
 }
 
 main().catch((e) => {
