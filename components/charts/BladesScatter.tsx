@@ -17,7 +17,7 @@ interface Props {
   unit: TempUnit;
 }
 
-const PAD = { left: 36, right: 12, top: 14, bottom: 36 };
+const PAD = { left: 36, right: 12, top: 24, bottom: 36 };
 const H = 230;
 const AGE = [
   { max: 20, label: 'Oil under 20 h', cls: 'fill-ice-300 stroke-ice-500' },
@@ -72,7 +72,7 @@ export function BladesScatter({ points, unit }: Props) {
           <text x={W - PAD.right} y={bottom + 31} textAnchor="end" className={AXIS_TEXT}>
             outside {tempLabel(unit)}
           </text>
-          <text x={4} y={PAD.top} dy="0.6em" className={AXIS_TEXT}>
+          <text x={PAD.left - 6} y={PAD.top - 9} textAnchor="end" className={AXIS_TEXT}>
             turns
           </text>
           {points.map((p, i) => (

@@ -21,7 +21,7 @@ interface Props {
   unit: VolumeUnit;
 }
 
-const PAD = { left: 44, right: 12, top: 14, bottom: 36 };
+const PAD = { left: 44, right: 12, top: 24, bottom: 36 };
 const H = 250;
 
 export function OilLevelChart({ checks, changes, fullL, unit }: Props) {
@@ -68,7 +68,7 @@ export function OilLevelChart({ checks, changes, fullL, unit }: Props) {
               </text>
             </g>
           ))}
-          <text x={4} y={PAD.top} dy="0.6em" className={AXIS_TEXT}>
+          <text x={PAD.left - 6} y={PAD.top - 9} textAnchor="end" className={AXIS_TEXT}>
             {ul}
           </text>
           {g.x.ticks.map((t) => (

@@ -12,11 +12,11 @@ export interface Scale {
   ticks: number[];
 }
 
-/** 1, 2, 2.5 or 5 × 10ⁿ so that about `count` steps cover `span`. */
+/** 1, 2 or 5 × 10ⁿ so that about `count` steps cover `span` (tick labels stay exact when rounded). */
 export function niceStep(span: number, count: number): number {
   const rough = Math.max(span, 1e-9) / Math.max(count, 1);
   const mag = Math.pow(10, Math.floor(Math.log10(rough)));
-  for (const m of [1, 2, 2.5, 5]) if (m * mag >= rough) return m * mag;
+  for (const m of [1, 2, 5]) if (m * mag >= rough) return m * mag;
   return 10 * mag;
 }
 

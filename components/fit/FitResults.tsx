@@ -124,12 +124,12 @@ export function FitResults({ aircraftId, log, series, suggestion, fit, zone, tem
                 <tr>
                   <th scope="row">Time constant τ</th>
                   <td className="tabular-nums font-semibold">{fmtEstimate(one.tauH)} h</td>
-                  <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(one.tauH)}</td>
+                  <td className="hidden pl-2 text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(one.tauH)}</td>
                 </tr>
                 <tr>
                   <th scope="row">Heat loss G = C/τ{fit.coverOn ? ' (cover on)' : ''}</th>
                   <td className="tabular-nums font-semibold">{fmtEstimate(one.lossWPerK)} W/K</td>
-                  <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(one.lossWPerK)}</td>
+                  <td className="hidden pl-2 text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(one.lossWPerK)}</td>
                 </tr>
                 <tr>
                   <th scope="row">{fit.surroundings === 'logged' ? 'Surroundings vs logged ambient' : 'Surroundings (constant)'}</th>
@@ -163,17 +163,17 @@ export function FitResults({ aircraftId, log, series, suggestion, fit, zone, tem
                   <tr>
                     <th scope="row">Oil loss</th>
                     <td className="tabular-nums font-semibold">{fmtEstimate(two.oilLossWPerK)} W/K</td>
-                    <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.oilLossWPerK)}</td>
+                    <td className="hidden pl-2 text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.oilLossWPerK)}</td>
                   </tr>
                   <tr>
                     <th scope="row">Engine loss</th>
                     <td className="tabular-nums font-semibold">{fmtEstimate(two.engineLossWPerK!)} W/K</td>
-                    <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.engineLossWPerK!)}</td>
+                    <td className="hidden pl-2 text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.engineLossWPerK!)}</td>
                   </tr>
                   <tr>
                     <th scope="row">Oil–engine coupling</th>
                     <td className="tabular-nums font-semibold">{fmtEstimate(two.couplingWPerK!)} W/K</td>
-                    <td className="hidden text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.couplingWPerK!)}</td>
+                    <td className="hidden pl-2 text-right text-xs text-slate-500 sm:table-cell">{fmtRelative(two.couplingWPerK!)}</td>
                   </tr>
                   <tr>
                     <th scope="row">τ fast · slow</th>
@@ -209,6 +209,18 @@ export function FitResults({ aircraftId, log, series, suggestion, fit, zone, tem
         </p>
       ) : null}
 
+      <div className="mt-3 space-y-2" aria-live="polite">
+        {status ? (
+          <p role="status" className="text-sm text-slate-700 dark:text-slate-300">
+            {status}
+          </p>
+        ) : null}
+        {error ? (
+          <Notice tone="danger" title="That did not work">
+            {error}
+          </Notice>
+        ) : null}
+      </div>
       <form
         className="mt-5 space-y-4 rounded-xl bg-slate-50 p-3 dark:bg-slate-800/50"
         onSubmit={(e) => {
@@ -254,18 +266,6 @@ export function FitResults({ aircraftId, log, series, suggestion, fit, zone, tem
           ) : null}
         </div>
       </form>
-      <div className="mt-3 space-y-2" aria-live="polite">
-        {status ? (
-          <p role="status" className="text-sm text-slate-700 dark:text-slate-300">
-            {status}
-          </p>
-        ) : null}
-        {error ? (
-          <Notice tone="danger" title="That did not work">
-            {error}
-          </Notice>
-        ) : null}
-      </div>
     </Card>
   );
 }

@@ -4,7 +4,7 @@
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import useSWR from 'swr';
-import { Button, Card, EmptyState, Notice } from '@/components/ui/primitives';
+import { Button, buttonClass, Card, EmptyState, Notice } from '@/components/ui/primitives';
 import { SelectField } from '@/components/ui/Field';
 import { OilLevelChart } from '@/components/charts/OilLevelChart';
 import { BladesScatter } from '@/components/charts/BladesScatter';
@@ -24,6 +24,11 @@ interface Props {
   selectedId: number | null;
   initial: OilLog | null;
   me: { id: number; canEditAircraft: boolean; tempUnit: TempUnit; volumeUnit: VolumeUnit };
+}
+
+/** "Sat 18 Sept 2027" in the zone. */
+function dayWithYear(ms: number, zone: string): string {
+  return new Date(ms).toLocaleDateString('en-GB', { timeZone: zone, weekday: 'short', day: 'numeric', month: 'short', year: 'numeric' }).replace(',', '');
 }
 
 const DUE_TONE = { ok: 'border-slate-200 dark:border-slate-800', soon: 'border-amber-300 bg-amber-50 dark:border-amber-700 dark:bg-amber-950', overdue: 'border-red-300 bg-red-50 dark:border-red-800 dark:bg-red-950', unknown: 'border-slate-200 dark:border-slate-800' } as const;
@@ -70,6 +75,9 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
             ))}
           </SelectField>
           {log ? <p className="text-sm text-slate-600 dark:text-slate-400">{log.aircraft.engineClassLabel} · oil capacity {fmtLevel(log.aircraft.oilQuantityL, vu, 1)}</p> : null}
+          <a href="#rec-check-h" className={`${buttonClass('primary', 'w-full')} lg:hidden`}>
+            Record a cold oil check
+          </a>
         </div>
         <HandTurningCautions />
       </div>
@@ -113,7 +121,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
                   <p className="text-sm text-slate-700 dark:text-slate-300">
                     {due.dueAtHours !== null ? `At ${fmtHours(due.dueAtHours)}${due.hoursLeft !== null ? ` (${due.hoursLeft >= 0 ? `${due.hoursLeft.toFixed(1)} h left` : `${(-due.hoursLeft).toFixed(1)} h over`})` : ''}` : ''}
                     {due.dueAtHours !== null && due.dueAtMs !== null ? ' or ' : ''}
-                    {due.dueAtMs !== null ? `by ${formatDay(due.dueAtMs, zone)}${due.daysLeft !== null ? ` (${due.daysLeft >= 0 ? `${Math.floor(due.daysLeft)} days left` : `${Math.ceil(-due.daysLeft)} days over`})` : ''}` : ''}
+                    {due.dueAtMs !== null ? `by ${dayWithYear(due.dueAtMs, zone)}${due.daysLeft !== null ? ` (${due.daysLeft >= 0 ? `${Math.floor(due.daysLeft)} days left` : `${Math.ceil(-due.daysLeft)} days over`})` : ''}` : ''}
                     {due.by ? `; ${due.by === 'hours' ? 'the hours' : 'the months'} come first.` : ''}
                   </p>
                 </>
@@ -137,7 +145,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
 
           <div className="grid gap-4 xl:grid-cols-2">
             <Card aria-labelledby="rec-check-h">
-              <h2 id="rec-check-h" className="text-lg font-semibold">Record a cold oil check</h2>
+              <h2 id="rec-check-h" className="scroll-mt-20 text-lg font-semibold">Record a cold oil check</h2>
               <p className="mb-4 mt-1 text-sm text-slate-600 dark:text-slate-400">In your units ({tu === 'F' ? '°F' : '°C'}, {vu === 'qt' ? 'US quarts' : 'litres'}); times at {zone}.</p>
               <OilCheckForm key={id} aircraftId={id} zone={zone} drySump={log.aircraft.drySump} tempUnit={tu} volumeUnit={vu} onSaved={(l) => void mutate(l, { revalidate: false })} />
             </Card>
@@ -157,7 +165,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
             </div>
           </div>
 
-          <Card aria-labelledby="checks-h" className="overflow-hidden p-0 sm:p-0">
+          <section aria-labelledby="checks-h" className="overflow-hidden rounded-2xl border border-slate-200 bg-white shadow-sm dark:border-slate-800 dark:bg-slate-900">
             <div className="flex flex-wrap items-center justify-between gap-2 px-4 pt-4 sm:px-5">
               <h2 id="checks-h" className="text-lg font-semibold">Oil checks</h2>
               <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
@@ -203,8 +211,10 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
                       </td>
                       <td className="py-2 pl-1 pr-3 text-right">
                         {k.author?.id === me.id || me.canEditAircraft ? (
-                          <Button variant="ghost" className="min-h-10 px-2 text-xs" onClick={() => remove('checks', k.id)}>
-                            Remove<span className="sr-only"> the check of {formatDateTime(Date.parse(k.checkedAt), zone)}</span>
+                          <Button variant="ghost" className="min-h-10 min-w-10 px-2 text-xs" onClick={() => remove('checks', k.id)}>
+                            <span className="hidden sm:inline">Remove</span>
+                            <span aria-hidden="true" className="text-base sm:hidden">✕</span>
+                            <span className="sr-only"> Remove the check of {formatDateTime(Date.parse(k.checkedAt), zone)}</span>
                           </Button>
                         ) : null}
                       </td>
@@ -214,7 +224,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
               </table>
               {!log.checks.length ? <p className="px-4 pb-4 text-sm text-slate-600 dark:text-slate-400">No oil checks recorded yet.</p> : null}
             </div>
-          </Card>
+          </section>
 
           <div className="grid gap-4 xl:grid-cols-2">
             <Card aria-labelledby="rec-change-h">
