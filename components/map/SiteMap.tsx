@@ -53,7 +53,7 @@ function FitToAirfields({ airfields }: { airfields: MapAirfield[] }) {
       return;
     }
     const bounds = L.latLngBounds(airfields.map((a) => [a.latitude, a.longitude] as [number, number]));
-    map.fitBounds(bounds, { padding: [80, 80], maxZoom: 6 });
+    map.fitBounds(bounds, { padding: [80, 80], maxZoom: 7 });
     // Only when the set of places changes, not on every forecast update.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [key, map]);

@@ -12,6 +12,15 @@ after(async () => {
   await browser?.close();
 });
 
+/** Opens a Site map tag's popup from the keyboard (tags may overlap where airfields are close). */
+async function openTag(page, ident) {
+  const marker = page.locator(`.leaflet-marker-icon[title*="(${ident})"]`);
+  await marker.waitFor();
+  await marker.focus();
+  await page.keyboard.press('Enter');
+  return marker;
+}
+
 /** The airfield form, found by its labels. */
 class AirfieldFormPage {
   constructor(page) {
@@ -77,10 +86,8 @@ test('a manager adds an airfield and a shelter and sees its marker on the Site m
   await page.getByRole('cell', { name: /Birch row T/ }).first().waitFor();
 
   await page.goto(`${BASE}/map`);
-  const marker = page.locator(`.leaflet-marker-icon[title*="(${NEW.ident})"]`);
-  await marker.waitFor();
+  const marker = await openTag(page, NEW.ident);
   assert.match(await marker.getAttribute('title'), /tonight's low|no forecast yet/);
-  await marker.click();
   const popup = page.locator('.leaflet-popup-content');
   await popup.getByText('Birch row T').waitFor();
   await popup.getByRole('link', { name: `Open ${NEW.name}` }).click();
@@ -91,9 +98,7 @@ test('a manager adds an airfield and a shelter and sees its marker on the Site m
 test('a pilot sees the map and an airfield page but no edit controls, and the forms answer 403', async () => {
   const { context, page } = await signedInContext(browser, 'pilot');
   await page.goto(`${BASE}/map`);
-  const marker = page.locator('.leaflet-marker-icon[title*="(XKTL)"]');
-  await marker.waitFor();
-  await marker.click();
+  await openTag(page, 'XKTL');
   await page.locator('.leaflet-popup-content').getByRole('link', { name: 'Open Kettle Lake' }).click();
   await page.waitForURL(/\/airfields\/\d+$/);
   await page.getByRole('heading', { level: 1, name: 'Kettle Lake' }).waitFor();
