@@ -490,7 +490,7 @@ export function AircraftForm({
           </summary>
           <p className="mt-2 text-sm text-slate-600 dark:text-slate-400">
             Estimated from the engine class. Change them only if you know better values; a fit from a cool-down log is more reliable.
-            {tau !== null ? ` Oil time constant ≈ ${tau.toFixed(1)} h uncovered.` : ''}
+            {tau !== null ? ` Oil node alone, uncovered: C/G ≈ ${tau.toFixed(1)} h.` : ''}
           </p>
           <div className="mt-4 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
             {draft.thermal.nodes.map((n, i) => (

@@ -151,9 +151,10 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
               <tr>
                 <SortHeader col="when" label="Departure" sort={sort} onSort={toggle} className="pl-3" />
                 <SortHeader col="aircraft" label="Aircraft" sort={sort} onSort={toggle} />
-                <SortHeader col="airfield" label="Airfield" sort={sort} onSort={toggle} />
+                {/* With an extra column the airfield moves under the aircraft until the screen is wide. */}
+                <SortHeader col="airfield" label="Airfield" sort={sort} onSort={toggle} className={hasExtra ? 'hidden 2xl:table-cell' : ''} />
                 {manageAll ? <SortHeader col="pilot" label="Pilot" sort={sort} onSort={toggle} /> : null}
-                <SortHeader col="ready" label="Ready at" sort={sort} onSort={toggle} align="right" className="text-right" />
+                <SortHeader col="ready" label="Oil needed" sort={sort} onSort={toggle} align="right" className="text-right" />
                 {hasExtra ? <th scope="col" className="px-4 py-1.5 text-xs font-semibold">{extraLabel}</th> : null}
                 <th scope="col" className="px-3 py-1.5">
                   <span className="sr-only">Actions</span>
@@ -172,12 +173,13 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                     <Link href={`/aircraft/${d.aircraft.id}`} className="font-semibold tracking-wide text-slate-900 hover:text-ice-700 hover:underline dark:text-white dark:hover:text-ice-300">
                       {d.aircraft.registration}
                     </Link>
+                    {hasExtra ? <div className="whitespace-nowrap text-xs text-slate-700 dark:text-slate-300 2xl:hidden">{d.aircraft.airfield?.name ?? '—'}</div> : null}
                     <div className="max-w-[15rem] truncate text-xs text-slate-500">
                       <Heat d={d} />
                       {d.notes ? ` · ${d.notes}` : ''}
                     </div>
                   </td>
-                  <td className="px-4 py-2.5">
+                  <td className={`px-4 py-2.5 ${hasExtra ? 'hidden 2xl:table-cell' : ''}`}>
                     <span className="whitespace-nowrap">{d.aircraft.airfield?.name ?? '—'}</span>
                     <div className="max-w-[11rem] truncate text-xs text-slate-500">{d.aircraft.shelter?.name}</div>
                   </td>
@@ -185,7 +187,7 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                   <td className="px-4 py-2.5 text-right">
                     <ReadyBadge d={d} unit={tempUnit} />
                   </td>
-                  {hasExtra ? <td className="px-4 py-2.5">{extraOf(d)}</td> : null}
+                  {hasExtra ? <td className="min-w-[13rem] px-4 py-2.5">{extraOf(d)}</td> : null}
                   <td className="px-3 py-2.5 text-right">
                     {mayCancel(d) ? (
                       <button
