@@ -339,3 +339,9 @@ export async function readinessByAirfield({ orgId, now = new Date(), refresh = '
   }
   return out;
 }
+
+/** Plans for departures already loaded (the departures page), computed or read as usual. */
+export async function plansForDepartures({ orgId, departures, now = new Date() }: { orgId: number; departures: DepartureRecord[]; now?: Date }) {
+  const upcoming = departures.filter((d) => !d.cancelled && d.departAtMs > now.getTime() - 30 * 60_000);
+  return plansFor(orgId, upcoming, now, 'if-old');
+}

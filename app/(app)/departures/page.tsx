@@ -6,6 +6,9 @@ import { pageUser } from '@/lib/auth/page';
 import { can } from '@/lib/auth/permissions';
 import { aircraftIdsFlownBy, listAircraft, listPilotChoices, type AircraftRecord } from '@/lib/data/aircraft';
 import { listDepartures } from '@/lib/data/departures';
+import { plansForDepartures } from '@/lib/data/plans';
+import { ReadinessCell } from '@/components/board/ReadinessCell';
+import { OilTooColdBanner } from '@/components/board/OilTooColdBanner';
 
 export const metadata: Metadata = { title: 'Departures' };
 
@@ -38,6 +41,10 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
     // The same window and scope as GET /api/departures, so SWR takes over seamlessly.
     listDepartures({ orgId: user.orgId, fromMs: nowMs - 6 * HOUR_MS, toMs: nowMs + 14 * 24 * HOUR_MS, pilotId: bookAny ? undefined : user.id }),
   ]);
+  const plans = await plansForDepartures({ orgId: user.orgId, departures, now: new Date(nowMs) });
+  const readiness = Object.fromEntries(plans.map((p) => [p.departureId, <ReadinessCell key={p.departureId} plan={p} units={user.tempUnit} canConfirm={can(user.role, 'plans:manage')} />]));
+  // The oil-too-cold warning: my own departures (as pilot) that will not be ready.
+  const tooCold = plans.filter((p) => p.pilot.id === user.id && (p.status === 'short' || p.status === 'unplanned'));
   const choices = fleet.filter((a) => !flies || flies.includes(a.id)).flatMap(bookable);
   const pilotChoices = bookAny ? [{ id: user.id, name: user.name }, ...pilots.filter((p) => p.id !== user.id)] : undefined;
   return (
@@ -46,6 +53,7 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
         title="Departures"
         subtitle={bookAny ? 'Every booked first flight of the day, and booking for any pilot.' : 'Your first flights of the day and whether the oil will be warm enough.'}
       />
+      <OilTooColdBanner plans={tooCold} units={user.tempUnit} />
       {choices.length ? (
         <a href="#book-h" className="mb-4 inline-flex min-h-11 items-center rounded-xl bg-ice-700 px-4 text-sm font-semibold text-white hover:bg-ice-800 dark:bg-ice-500 dark:text-slate-950 xl:hidden">
           Book a departure
@@ -63,7 +71,7 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
         </div>
         <section aria-labelledby="upcoming-h" className="order-1 min-w-0 xl:order-2">
           <h2 id="upcoming-h" className="mb-3 text-lg font-semibold">{bookAny ? 'Upcoming departures' : 'Your upcoming departures'}</h2>
-          <DepartureList initial={departures} tempUnit={user.tempUnit} selfId={user.id} manageAll={bookAny} nowMs={nowMs} />
+          <DepartureList initial={departures} tempUnit={user.tempUnit} selfId={user.id} manageAll={bookAny} nowMs={nowMs} extraById={readiness} extraLabel="Readiness at departure" />
         </section>
       </div>
     </>

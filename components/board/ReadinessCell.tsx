@@ -1,0 +1,24 @@
+import { formatTemp } from '@/components/airfields/format';
+import { formatDayTime } from '@/lib/time';
+import type { PlanView } from '@/lib/data/plans';
+import { ReadinessBadge } from './ReadinessBadge';
+import { PlanDisclosure } from './PlanDisclosure';
+
+/** A departure's readiness in a list: status, predicted oil at departure, chance, and the switch-on time. */
+export function ReadinessCell({ plan, units, canConfirm = false }: { plan: PlanView; units: 'C' | 'F'; canConfirm?: boolean }) {
+  const zone = plan.airfield?.timeZone ?? 'UTC';
+  return (
+    <div className="space-y-1 text-sm">
+      <div className="flex flex-wrap items-center gap-2">
+        <ReadinessBadge status={plan.status} />
+        {plan.probabilityReady !== null ? <span className="text-xs text-slate-600 dark:text-slate-400">{Math.round(plan.probabilityReady * 100)} % chance ready</span> : null}
+      </div>
+      <div className="tabular-nums">
+        Oil at departure <strong className={plan.oilAtDepartureC !== null && plan.oilAtDepartureC < plan.readyC ? 'text-red-700 dark:text-red-300' : ''}>{formatTemp(plan.oilAtDepartureC, units, 0)}</strong>
+        <span className="text-slate-500"> · ready {formatTemp(plan.readyC, units, 0)}</span>
+      </div>
+      {plan.switchOnAt ? <div className="text-xs text-ember-700 dark:text-ember-300">Heater on {formatDayTime(Date.parse(plan.switchOnAt), zone)}</div> : null}
+      <PlanDisclosure departureId={plan.departureId} units={units} canConfirm={canConfirm} />
+    </div>
+  );
+}
