@@ -68,6 +68,6 @@ export function initTempLog(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'temp_logs' },
+    { sequelize, modelName: 'TempLog', tableName: 'temp_logs' },
   );
 }
