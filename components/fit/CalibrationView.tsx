@@ -14,6 +14,7 @@ import type { ThermalParams } from '@/models/Aircraft';
 import { FitResults } from './FitResults';
 import { ProfileHistory, type Profile } from './ProfileHistory';
 import { UploadForm } from './UploadForm';
+import { StatusArea } from './StatusArea';
 import { PreviewDetails } from './PreviewDetails';
 import { sendFile } from './upload';
 
@@ -160,18 +161,7 @@ export function CalibrationView({ aircraft, selectedId, initialLogs, initialProf
               }}
             />
           ) : null}
-          <div className="mt-3 space-y-2" aria-live="polite">
-            {status ? (
-              <p role="status" className="text-sm text-slate-700 dark:text-slate-300">
-                {status}
-              </p>
-            ) : null}
-            {error ? (
-              <Notice tone="danger" title="That did not work">
-                {error}
-              </Notice>
-            ) : null}
-          </div>
+          <StatusArea status={status} error={error} />
         </Card>
 
         {preview ? (

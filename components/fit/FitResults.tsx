@@ -2,7 +2,7 @@
 // A stored log's fit: the fit over the data with its residuals, the figures (τ, G, RMSE, R², each
 // parameter's uncertainty), the window and options to fit again, and applying the fit to the profile.
 import { useMemo, useState } from 'react';
-import { Button, Card, Notice } from '@/components/ui/primitives';
+import { Button, Card } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
 import { CooldownChart, type ModelCurve } from '@/components/charts/CooldownChart';
 import { sendJson } from '@/lib/client/fetcher';
@@ -11,6 +11,7 @@ import { tempLabel, toDisplayDelta, toDisplayTemp, type TempUnit } from '@/lib/u
 import type { LogRecord, SeriesForChart, StoredFit } from '@/lib/data/logs';
 import type { Estimate } from '@/lib/fit/cooldown';
 import { fmtEstimate, fmtKJ, fmtRelative } from './format';
+import { StatusArea } from './StatusArea';
 
 interface Props {
   aircraftId: number;
@@ -209,18 +210,7 @@ export function FitResults({ aircraftId, log, series, suggestion, fit, zone, tem
         </p>
       ) : null}
 
-      <div className="mt-3 space-y-2" aria-live="polite">
-        {status ? (
-          <p role="status" className="text-sm text-slate-700 dark:text-slate-300">
-            {status}
-          </p>
-        ) : null}
-        {error ? (
-          <Notice tone="danger" title="That did not work">
-            {error}
-          </Notice>
-        ) : null}
-      </div>
+      <StatusArea status={status} error={error} />
       <form
         className="mt-5 space-y-4 rounded-xl bg-slate-50 p-3 dark:bg-slate-800/50"
         onSubmit={(e) => {

@@ -3,33 +3,23 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
-import { sendJson } from '@/lib/client/fetcher';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { volumeLabel, type VolumeUnit } from '@/lib/units';
 import type { OilLog } from '@/lib/data/oil';
+import { useSubmit } from './useSubmit';
 
 export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSaved }: { aircraftId: number; zone: string; currentHours: number | null; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {
   const blank = () => ({ changedAt: localIsoMinutes(zone, Date.now()), engineHours: currentHours !== null ? String(currentHours) : '', oilGrade: '', quantity: '', notes: '' });
   const [form, setForm] = useState(blank);
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState('');
-  const [pending, setPending] = useState(false);
+  const { fields, status, pending, submit } = useSubmit();
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
 
   async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    setPending(true);
-    const r = await sendJson<{ id: number; oilLog: OilLog }>(`/api/aircraft/${aircraftId}/oil/changes`, 'POST', form);
-    setPending(false);
-    if (r.ok) {
-      setFields({});
+    await submit<{ id: number; oilLog: OilLog }>(`/api/aircraft/${aircraftId}/oil/changes`, 'POST', form, 'Oil change recorded.', (d) => {
       setForm(blank());
-      setStatus('Oil change recorded.');
-      onSaved(r.data.oilLog);
-    } else {
-      setFields(r.fields);
-      setStatus(r.message);
-    }
+      onSaved(d.oilLog);
+    });
   }
 
   return (
@@ -56,23 +46,12 @@ export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSa
 export function IntervalForm({ aircraftId, hours, months, onSaved }: { aircraftId: number; hours: number | null; months: number | null; onSaved: () => void }) {
   const [h, setH] = useState(hours !== null ? String(hours) : '');
   const [m, setM] = useState(months !== null ? String(months) : '');
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState('');
-  const [pending, setPending] = useState(false);
+  const { fields, status, pending, submit } = useSubmit();
   async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    setPending(true);
-    const r = await sendJson(`/api/aircraft/${aircraftId}/oil/settings`, 'PATCH', { oilChangeIntervalHours: h, oilChangeIntervalMonths: m });
-    setPending(false);
-    if (r.ok) {
-      setFields({});
-      setStatus('Interval saved.');
-      onSaved();
-    } else {
-      setFields(r.fields);
-      setStatus(r.message);
-    }
+    await submit(`/api/aircraft/${aircraftId}/oil/settings`, 'PATCH', { oilChangeIntervalHours: h, oilChangeIntervalMonths: m }, 'Interval saved.', () => onSaved());
   }
+
   return (
     <form onSubmit={onSubmit} className="space-y-3" noValidate>
       <div className="grid grid-cols-2 gap-3">

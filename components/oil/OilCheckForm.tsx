@@ -3,21 +3,19 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
-import { sendJson } from '@/lib/client/fetcher';
 import { correctedLevelL, correctionFraction } from '@/lib/oil/level';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { fromDisplayTemp, fromDisplayVolume, tempLabel, volumeLabel, type TempUnit, type VolumeUnit } from '@/lib/units';
 import type { OilLog } from '@/lib/data/oil';
 import { fmtLevel, fmtPercent } from './format';
+import { useSubmit } from './useSubmit';
 
 const EMPTY = { level: '', oilTemp: '', outsideTemp: '', bladesTurned: '', engineHours: '', added: '', notes: '' };
 const num = (s: string) => Number(s.trim().replace(',', '.').replace('\u2212', '-'));
 
 export function OilCheckForm({ aircraftId, zone, drySump, tempUnit, volumeUnit, onSaved }: { aircraftId: number; zone: string; drySump: boolean; tempUnit: TempUnit; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {
   const [form, setForm] = useState({ ...EMPTY, checkedAt: localIsoMinutes(zone, Date.now()) });
-  const [fields, setFields] = useState<Record<string, string>>({});
-  const [status, setStatus] = useState('');
-  const [pending, setPending] = useState(false);
+  const { fields, status, pending, submit } = useSubmit();
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
   const tl = tempLabel(tempUnit);
   const vl = volumeLabel(volumeUnit);
@@ -34,21 +32,12 @@ export function OilCheckForm({ aircraftId, zone, drySump, tempUnit, volumeUnit, 
 
   async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
-    setPending(true);
-    setStatus('');
     const body: Record<string, string> = {};
     for (const [k, v] of Object.entries(form)) if (v.trim() !== '' || k === 'level' || k === 'oilTemp' || k === 'outsideTemp') body[k] = v;
-    const r = await sendJson<{ id: number; oilLog: OilLog }>(`/api/aircraft/${aircraftId}/oil/checks`, 'POST', body);
-    setPending(false);
-    if (r.ok) {
-      setFields({});
+    await submit<{ id: number; oilLog: OilLog }>(`/api/aircraft/${aircraftId}/oil/checks`, 'POST', body, 'Oil check recorded.', (d) => {
       setForm({ ...EMPTY, checkedAt: localIsoMinutes(zone, Date.now()) });
-      setStatus('Oil check recorded.');
-      onSaved(r.data.oilLog);
-    } else {
-      setFields(r.fields);
-      setStatus(r.message);
-    }
+      onSaved(d.oilLog);
+    });
   }
 
   return (
