@@ -43,7 +43,22 @@ function emailLine(a: AlertView): string {
 }
 
 /** One alert: what it says in the reader's units and the airfield's time, what would fix it, the cautions. */
-export function AlertCard({ alert, unit, nowMs, onAcknowledge, pending }: { alert: AlertView; unit: TempUnit; nowMs: number; onAcknowledge: (ack: boolean) => void; pending: boolean }) {
+export function AlertCard({
+  alert,
+  unit,
+  nowMs,
+  onAcknowledge,
+  pending,
+  cautionsOpen = false,
+}: {
+  alert: AlertView;
+  unit: TempUnit;
+  nowMs: number;
+  onAcknowledge: (ack: boolean) => void;
+  pending: boolean;
+  /** The first unread warning shows its safety lines open; the others keep them folded. */
+  cautionsOpen?: boolean;
+}) {
   const d = describeAlert(alert.kind, alert.data, { unit, audience: alert.audience, nowMs });
   const read = !!alert.acknowledgedAt;
   const resolved = !!alert.resolvedAt;
@@ -132,7 +147,7 @@ export function AlertCard({ alert, unit, nowMs, onAcknowledge, pending }: { aler
           </table>
         </div>
       ) : null}
-      <details className="mt-4 rounded-xl border border-amber-300 bg-amber-50 px-4 py-2 text-xs text-amber-950 dark:border-amber-700 dark:bg-amber-950 dark:text-amber-100" open={!read && !resolved && alert.kind !== 'cold-night'}>
+      <details className="mt-4 rounded-xl border border-amber-300 bg-amber-50 px-4 py-2 text-xs text-amber-950 dark:border-amber-700 dark:bg-amber-950 dark:text-amber-100" open={cautionsOpen}>
         <summary className="cursor-pointer py-1 font-semibold">Safety: estimates only, the manufacturer&apos;s instructions come first</summary>
         <ul className="mb-1 mt-1 list-disc space-y-0.5 pl-4">
           {CAUTIONS[alert.kind].map((c) => (

@@ -26,6 +26,7 @@ export function AlertsView({ initial, unit }: { initial: AlertsData; unit: TempU
   const nowMs = Date.parse(list.generatedAt);
   const open = list.alerts.filter((a) => !a.resolvedAt);
   const resolved = list.alerts.filter((a) => a.resolvedAt);
+  const firstUnreadHeat = open.find((a) => !a.acknowledgedAt && a.kind !== 'cold-night')?.id;
 
   async function acknowledge(id: number, acknowledged: boolean) {
     setPending(id);
@@ -64,7 +65,9 @@ export function AlertsView({ initial, unit }: { initial: AlertsData; unit: TempU
           When an engine will be too cold at departure, a heater needs switching on by hand, or a cold night is coming, it shows here and by e-mail.
         </EmptyState>
       ) : (
-        open.map((a) => <AlertCard key={a.id} alert={a} unit={unit} nowMs={nowMs} pending={pending === a.id} onAcknowledge={(ack) => acknowledge(a.id, ack)} />)
+        open.map((a) => (
+          <AlertCard key={a.id} alert={a} unit={unit} nowMs={nowMs} pending={pending === a.id} cautionsOpen={a.id === firstUnreadHeat} onAcknowledge={(ack) => acknowledge(a.id, ack)} />
+        ))
       )}
       {resolved.length ? (
         <details className="rounded-2xl border border-slate-200 bg-white/60 p-4 dark:border-slate-800 dark:bg-slate-900/40">
