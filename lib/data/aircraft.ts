@@ -220,8 +220,8 @@ export async function listPilotChoices({ orgId }: { orgId: number }): Promise<Pi
 // ---------------------------------------------------------------------------------------------
 // Writing
 
-function presetThermal(engineClass: string): ThermalParams {
-  return structuredClone(aircraftDefaultsFor(engineClass).thermal);
+function presetThermal(engineClass: string, oilL?: number): ThermalParams {
+  return structuredClone(aircraftDefaultsFor(engineClass, oilL).thermal);
 }
 
 function sameThermal(a: ThermalInput | ThermalParams, b: ThermalParams): boolean {
@@ -236,8 +236,8 @@ function sameThermal(a: ThermalInput | ThermalParams, b: ThermalParams): boolean
 }
 
 /** The thermal parameters to store: given ones (manual unless equal to the preset or to what is stored), else the preset. */
-function resolveThermal(engineClass: string, given: ThermalInput | null | undefined, stored?: ThermalParams): ThermalParams {
-  const preset = presetThermal(engineClass);
+function resolveThermal(engineClass: string, given: ThermalInput | null | undefined, stored?: ThermalParams, oilL?: number): ThermalParams {
+  const preset = presetThermal(engineClass, oilL);
   if (!given) return preset;
   const t: ThermalParams = {
     nodes: given.nodes.map((n) => ({ name: n.name, heatCapacityJPerK: n.heatCapacityJPerK, lossWPerK: n.lossWPerK })),
@@ -317,7 +317,8 @@ export async function createAircraft({ orgId, input, now = new Date() }: { orgId
         typeLabel: input.typeLabel,
         engineClass: input.engineClass,
         oilQuantityL: input.oilQuantityL ?? preset.oilQuantityL,
-        thermal: resolveThermal(input.engineClass, input.thermal),
+        // The preset's oil heat capacity follows the oil quantity entered.
+        thermal: resolveThermal(input.engineClass, input.thermal, undefined, input.oilQuantityL ?? undefined),
         coverOnByDefault: input.coverOnByDefault,
         lastShutdownAt: input.lastShutdownAt ?? null,
         lastShutdownOilC: input.lastShutdownOilC ?? null,

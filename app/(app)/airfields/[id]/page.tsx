@@ -33,12 +33,15 @@ export default async function Page({ params }: { params: Promise<{ id: string }>
           </span>
         }
         actions={
-          canEdit ? (
-            <>
-              <ButtonLink href={`/airfields/${airfield.id}/edit`} variant="secondary">Edit airfield</ButtonLink>
-              <ButtonLink href={`/airfields/${airfield.id}/shelters/new`}>Add shelter</ButtonLink>
-            </>
-          ) : null
+          <>
+            <ButtonLink href={`/airfields/${airfield.id}/tariff`} variant="secondary">Electricity tariff</ButtonLink>
+            {canEdit ? (
+              <>
+                <ButtonLink href={`/airfields/${airfield.id}/edit`} variant="secondary">Edit airfield</ButtonLink>
+                <ButtonLink href={`/airfields/${airfield.id}/shelters/new`}>Add shelter</ButtonLink>
+              </>
+            ) : null}
+          </>
         }
       />
       {airfield.archived ? (
