@@ -2,6 +2,7 @@
 // form, the route handlers and any CLI. Everything is stored in SI and °C / litres; the form converts
 // from the user's units before it sends. Every issue carries its field's path.
 import { z } from 'zod';
+import { toNumberInput } from './numbers';
 import { HEATER_CONTROLS, type HeaterControl } from '@/lib/heater-controls';
 import { ENGINE_CLASSES, ENGINE_CLASS_IDS, HEATER_KINDS, type EngineClassId, type HeaterKind } from '@/lib/thermal/presets';
 
@@ -27,17 +28,7 @@ export const MAX_PILOTS = 500;
 // ---------------------------------------------------------------------------------------------
 // Shared field helpers (also used by the departure and tariff schemas)
 
-/** Form strings to numbers: "" and null mean "not given"; a decimal comma and a typographic minus are read. */
-export function toNumberInput(v: unknown): unknown {
-  if (v === null || v === undefined) return undefined;
-  if (typeof v === 'string') {
-    const s = v.trim().replace(/\u2212/g, '-').replace(',', '.');
-    if (s === '') return undefined;
-    const n = Number(s);
-    return Number.isNaN(n) ? v : n;
-  }
-  return v;
-}
+export { toNumberInput };
 
 function rangeMessage(what: string, min: number, max: number, unit: string) {
   const f = (n: number) => `${n.toLocaleString('en-GB').replace('-', '\u2212')}${unit}`;

@@ -2,6 +2,7 @@
 // Form values arrive as strings; numbers are coerced ("" means "not given", a decimal comma is read
 // as a point). Every issue carries its field's path, so errors show beside the field.
 import { z } from 'zod';
+import { toNumberInput } from './numbers';
 import type { ShelterKind } from '@/models/Shelter';
 import { shelterDefaultsFor } from '@/lib/seed/defaults';
 import { canonicalTimeZone } from '@/lib/time';
@@ -35,16 +36,6 @@ export function hasShelterAir(kind: ShelterKind): boolean {
 
 export const MAX_SHELTERS_PER_REQUEST = 30;
 
-function toNumberInput(v: unknown): unknown {
-  if (v === null || v === undefined) return undefined;
-  if (typeof v === 'string') {
-    const s = v.trim().replace(/\u2212/g, '-').replace(',', '.');
-    if (s === '') return undefined;
-    const n = Number(s);
-    return Number.isNaN(n) ? v : n;
-  }
-  return v;
-}
 
 /** A finite number in [min, max] with messages naming the quantity (`unit` carries its own spacing: "°", " m"). */
 function numberCore(what: string, min: number, max: number, unit = '') {
