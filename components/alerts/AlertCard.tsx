@@ -130,7 +130,10 @@ export function AlertCard({
               {d.table.rows.map((r, i) => (
                 <tr key={i}>
                   {r.map((v, j) => (
-                    <td key={j} className={`py-1.5 pr-3 ${j === 0 ? 'font-medium' : ''}`}>{v}</td>
+                    <td key={j} className={`py-1.5 pr-3 align-top ${j === 0 ? 'font-medium' : ''}`}>
+                      {v.split('\n')[0]}
+                      {v.includes('\n') ? <span className="block text-xs font-normal text-slate-500 dark:text-slate-400">{v.split('\n').slice(1).join(' ')}</span> : null}
+                    </td>
                   ))}
                 </tr>
               ))}

@@ -262,7 +262,7 @@ export function describeColdNight(d: ColdNightData, unit: TempUnit): Described {
       ? {
           caption: 'Aircraft that need heat',
           columns: ['Aircraft', 'Departure', 'Status', 'Switch-on', 'Energy'],
-          rows: need.map((a) => [`${a.registration} · ${a.airfield}`, shortWhen(a.departAt, z), READINESS_LABEL[a.status], a.switchOnAt ? shortWhen(a.switchOnAt, z) : '—', kwh(a.energyKWh)]),
+          rows: need.map((a) => [`${a.registration}\n${a.airfield}`, shortWhen(a.departAt, z), READINESS_LABEL[a.status], a.switchOnAt ? shortWhen(a.switchOnAt, z) : '—', kwh(a.energyKWh)]),
           footer: ['Total planned', '', '', '', kwh(d.totals.energyKWh)],
         }
       : undefined,

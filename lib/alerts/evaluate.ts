@@ -67,7 +67,7 @@ interface Candidate {
   expiresAt?: Date | null;
 }
 
-type Material = (prev: Record<string, unknown>, next: Record<string, unknown>) => boolean;
+type Material = (prev: Record<string, unknown>, next: Record<string, unknown>, nowMs: number) => boolean;
 
 const MATERIAL: Record<AlertKind, Material> = {
   'oil-too-cold': (a, b) =>
@@ -76,7 +76,11 @@ const MATERIAL: Record<AlertKind, Material> = {
     a.readyC !== b.readyC ||
     (a.oilC === null) !== (b.oilC === null) ||
     (typeof a.oilC === 'number' && typeof b.oilC === 'number' && Math.abs(a.oilC - b.oilC) > MATERIAL_OIL_CHANGE_K),
-  'switch-on': (a, b) => a.departAt !== b.departAt || Math.abs(Number(a.switchOnMs) - Number(b.switchOnMs)) >= MATERIAL_SWITCH_ON_SHIFT_MS,
+  // A heater that should already be on stays on: a later time after the one sent has passed is no news
+  // (a heater too weak for its plan is told "switch on now" at every evaluation otherwise).
+  'switch-on': (a, b, nowMs) =>
+    a.departAt !== b.departAt ||
+    (Math.abs(Number(a.switchOnMs) - Number(b.switchOnMs)) >= MATERIAL_SWITCH_ON_SHIFT_MS && !(Number(a.switchOnMs) <= nowMs && Number(b.switchOnMs) > Number(a.switchOnMs))),
   // One notice a night.
   'cold-night': () => false,
 };
@@ -84,8 +88,8 @@ const MATERIAL: Record<AlertKind, Material> = {
 const round1 = (v: number | null) => (v === null ? null : Math.round(v * 10) / 10);
 
 /** Whether a new prediction differs enough from the one last sent to be sent again. */
-export function isMaterialChange(kind: AlertKind, prev: Record<string, unknown>, next: Record<string, unknown>): boolean {
-  return MATERIAL[kind](prev, next);
+export function isMaterialChange(kind: AlertKind, prev: Record<string, unknown>, next: Record<string, unknown>, nowMs = 0): boolean {
+  return MATERIAL[kind](prev, next, nowMs);
 }
 
 /** Writes the alert (a new revision when there is none or the change is material) and queues its e-mail. */
@@ -95,7 +99,7 @@ async function notify(c: Candidate, now: Date, report: EvaluationReport): Promis
   const channel = channelFor(prefs, c.kind);
   if (channel === 'off') return;
   const latest = await Alert.findOne({ where: { userId: user.id, subjectKey: c.subjectKey }, order: [['revision', 'DESC']] });
-  if (latest && !latest.resolvedAt && !MATERIAL[c.kind](latest.state as Record<string, unknown>, c.state)) {
+  if (latest && !latest.resolvedAt && !MATERIAL[c.kind](latest.state as Record<string, unknown>, c.state, now.getTime())) {
     // Same prediction, near enough: the shown figures follow quietly, nothing is sent.
     if (JSON.stringify(latest.data) !== JSON.stringify(c.data)) await latest.update({ data: c.data, title: c.title });
     report.unchanged++;

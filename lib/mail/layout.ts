@@ -14,8 +14,11 @@ export interface EmailDoc {
   intro: string[];
   facts?: { label: string; value: string; strong?: boolean }[];
   sections?: { heading: string; items: string[]; tone?: 'heat' | 'ice' }[];
+  /** A cell may hold two lines ("Q-KAPA\nKettle Lake"): the second is shown smaller. */
   table?: { caption: string; columns: string[]; rows: string[][]; footer?: string[] };
   action: { label: string; url: string };
+  /** A quieter second link under the button. */
+  secondary?: { label: string; url: string };
   afterAction?: string[];
   /** Safety lines (PRODUCT.md, Safety); at least the estimates line. */
   cautions: string[];
@@ -56,6 +59,12 @@ function p(text: string, style = '') {
   return `<p style="margin:0 0 12px 0;font-size:15px;line-height:22px;color:${C.body};${style}">${escapeHtml(text)}</p>`;
 }
 
+/** A table cell: its second line, if any, smaller and muted. */
+function cell(v: string): string {
+  const [first, ...rest] = v.split('\n');
+  return rest.length ? `${escapeHtml(first)}<br><span style="font-size:12px;font-weight:400;color:${C.muted}">${escapeHtml(rest.join(' '))}</span>` : escapeHtml(first);
+}
+
 function button(label: string, url: string) {
   return `<table role="presentation" cellpadding="0" cellspacing="0" border="0" style="margin:8px 0 16px 0"><tr><td style="border-radius:12px;background:${C.ice}"><a href="${escapeHtml(url)}" style="display:inline-block;padding:13px 22px;font-family:${FONT};font-size:15px;font-weight:600;line-height:20px;color:#ffffff;text-decoration:none;border-radius:12px">${escapeHtml(label)}</a></td></tr></table>`;
 }
@@ -85,9 +94,9 @@ export function renderHtml(doc: EmailDoc): string {
     .join('');
   const table = doc.table
     ? `<p style="margin:4px 0 6px 0;font-size:14px;font-weight:700;color:${C.title}">${escapeHtml(doc.table.caption)}</p><table role="presentation" cellpadding="0" cellspacing="0" border="0" width="100%" style="margin:0 0 16px 0;border:1px solid ${C.border};border-radius:8px;border-collapse:separate"><tr>${doc.table.columns
-        .map((c) => `<td style="padding:8px 10px;background:${C.iceSoft};font-size:12px;font-weight:700;letter-spacing:0.03em;text-transform:uppercase;color:${C.muted}">${escapeHtml(c)}</td>`)
+        .map((c) => `<td style="padding:8px 8px;background:${C.iceSoft};font-size:12px;font-weight:700;letter-spacing:0.03em;text-transform:uppercase;color:${C.muted}">${escapeHtml(c)}</td>`)
         .join('')}</tr>${doc.table.rows
-        .map((r) => `<tr>${r.map((v, i) => `<td style="padding:8px 10px;border-top:1px solid ${C.border};font-size:14px;line-height:19px;color:${C.title};font-weight:${i === 0 ? 600 : 400}">${escapeHtml(v)}</td>`).join('')}</tr>`)
+        .map((r) => `<tr>${r.map((v, i) => `<td style="padding:8px 8px;border-top:1px solid ${C.border};font-size:14px;line-height:19px;color:${C.title};font-weight:${i === 0 ? 600 : 400};vertical-align:top">${cell(v)}</td>`).join('')}</tr>`)
         .join('')}${
         doc.table.footer
           ? `<tr>${doc.table.footer.map((v) => `<td style="padding:8px 10px;border-top:2px solid ${C.border};font-size:14px;font-weight:700;color:${heat ? C.heat : C.title}">${escapeHtml(v)}</td>`).join('')}</tr>`
@@ -120,6 +129,7 @@ export function renderHtml(doc: EmailDoc): string {
 ${doc.intro.map((t) => p(t)).join('')}
 ${facts}${sections}${table}
 ${button(doc.action.label, doc.action.url)}
+${doc.secondary ? `<p style="margin:0 0 12px 0;font-size:14px;line-height:20px"><a href="${escapeHtml(doc.secondary.url)}" style="color:${C.ice};font-weight:600">${escapeHtml(doc.secondary.label)}</a></p>` : ''}
 ${(doc.afterAction ?? []).map((t) => p(t, `font-size:13px;line-height:19px;color:${C.muted}`)).join('')}
 ${cautions}
 </td></tr>
@@ -166,15 +176,18 @@ export function renderText(doc: EmailDoc): string {
   }
   if (doc.table) {
     out.push(doc.table.caption);
-    const rows = [doc.table.columns, ...doc.table.rows, ...(doc.table.footer ? [doc.table.footer] : [])];
+    const flat = (r: string[]) => r.map((v) => v.replace(/\n/g, ' · '));
+    const body = doc.table.rows.map(flat);
+    const rows = [doc.table.columns, ...body, ...(doc.table.footer ? [doc.table.footer] : [])];
     const widths = doc.table.columns.map((_, i) => Math.max(...rows.map((r) => (r[i] ?? '').length)));
     const fmt = (r: string[]) => '  ' + r.map((v, i) => (v ?? '').padEnd(widths[i])).join('  ').trimEnd();
     out.push(fmt(doc.table.columns), '  ' + widths.map((w) => '-'.repeat(w)).join('  '));
-    for (const r of doc.table.rows) out.push(fmt(r));
+    for (const r of body) out.push(fmt(r));
     if (doc.table.footer) out.push('  ' + widths.map((w) => '-'.repeat(w)).join('  '), fmt(doc.table.footer));
     out.push('');
   }
   out.push(`${doc.action.label}:`, `  ${doc.action.url}`, '');
+  if (doc.secondary) out.push(`${doc.secondary.label}:`, `  ${doc.secondary.url}`, '');
   for (const t of doc.afterAction ?? []) out.push(wrap(t), '');
   out.push('Safety');
   for (const c of doc.cautions) out.push(bullet(c));

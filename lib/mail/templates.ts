@@ -5,7 +5,7 @@ import { ALERT_KIND_LABEL, describeAlert, type AlertData, type AlertKind, type A
 import { CAUTIONS } from '@/lib/alerts/safety';
 import { ROLE_LABEL, type Role } from '@/lib/auth/permissions';
 import type { TempUnit } from '@/lib/units';
-import { formatDateTime } from '@/lib/time';
+import { formatDateTime, zoneLabel } from '@/lib/time';
 import { renderHtml, renderText, type EmailDoc } from './layout';
 import { absoluteUrl, oneClickUnsubscribeUrl, unsubscribeUrl } from './links';
 
@@ -65,7 +65,7 @@ export function renderAlertMail(kind: AlertKind, data: AlertData, to: AlertRecip
     sections: d.sections,
     table: d.table,
     action: { label: link.label, url: absoluteUrl(link.path) },
-    afterAction: [`All your alerts: ${absoluteUrl('/alerts')}`],
+    secondary: { label: 'See all your alerts in Thawline', url: absoluteUrl('/alerts') },
     cautions: [...CAUTIONS[kind]],
     reason: REASON[kind](to.audience),
     preferencesUrl: absoluteUrl('/alerts#preferences'),
@@ -75,6 +75,10 @@ export function renderAlertMail(kind: AlertKind, data: AlertData, to: AlertRecip
     'List-Unsubscribe': `<${oneClickUnsubscribeUrl(to.id, kind)}>`,
     'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
   });
+}
+
+function localExpiry(at: Date, zone: string): string {
+  return `${formatDateTime(at.getTime(), zone)} ${zoneLabel(zone, at.getTime())}`;
 }
 
 export function renderInviteMail(p: { name: string; orgName: string; inviterName: string; role: Role; url: string; expiresAt: Date; timeZone: string }): RenderedMail {
@@ -90,7 +94,7 @@ export function renderInviteMail(p: { name: string; orgName: string; inviterName
       'Choose your password to finish setting up your account.',
     ],
     action: { label: 'Choose your password', url: p.url },
-    afterAction: [`The link works once and expires on ${formatDateTime(p.expiresAt.getTime(), p.timeZone)}. If it has expired, ask ${p.inviterName} to send a new invitation.`],
+    afterAction: [`The link works once and expires on ${localExpiry(p.expiresAt, p.timeZone)}. If it has expired, ask ${p.inviterName} to send a new invitation.`],
     cautions: [...CAUTIONS.account],
     reason: `You get this e-mail because a manager of ${p.orgName} entered this address. If you did not expect it, you can ignore it: no account is usable until a password is chosen.`,
   });
@@ -106,7 +110,7 @@ export function renderResetMail(p: { name: string; url: string; expiresAt: Date;
     intro: [`Hello ${p.name}, someone (we hope you) asked to reset the password of your Thawline account.`],
     action: { label: 'Choose a new password', url: p.url },
     afterAction: [
-      `The link works once and expires on ${formatDateTime(p.expiresAt.getTime(), p.timeZone)}.`,
+      `The link works once and expires on ${localExpiry(p.expiresAt, p.timeZone)}.`,
       'If you did not ask for this, ignore this e-mail: your password stays as it is.',
     ],
     cautions: [...CAUTIONS.account],

@@ -110,8 +110,12 @@ describe('oil-too-cold warning', () => {
     expect(isMaterialChange('oil-too-cold', base, { ...base, oilC: 7.9 })).toBe(true);
     expect(isMaterialChange('oil-too-cold', base, { ...base, status: 'unplanned' })).toBe(true);
     expect(isMaterialChange('oil-too-cold', base, { ...base, departAt: '2026-12-03T06:00:00.000Z' })).toBe(true);
-    expect(isMaterialChange('switch-on', { switchOnMs: 0, departAt: 'x' }, { switchOnMs: 14 * 60_000, departAt: 'x' })).toBe(false);
-    expect(isMaterialChange('switch-on', { switchOnMs: 0, departAt: 'x' }, { switchOnMs: 15 * 60_000, departAt: 'x' })).toBe(true);
+    expect(isMaterialChange('switch-on', { switchOnMs: 0, departAt: 'x' }, { switchOnMs: 14 * 60_000, departAt: 'x' }, -1)).toBe(false);
+    const h = 3_600_000;
+    expect(isMaterialChange('switch-on', { switchOnMs: h, departAt: 'x' }, { switchOnMs: h + 15 * 60_000, departAt: 'x' }, 0)).toBe(true);
+    expect(isMaterialChange('switch-on', { switchOnMs: h, departAt: 'x' }, { switchOnMs: h - 15 * 60_000, departAt: 'x' }, 0)).toBe(true);
+    // Once the time sent has passed, a later one is no news: the heater should be on already.
+    expect(isMaterialChange('switch-on', { switchOnMs: h, departAt: 'x' }, { switchOnMs: h + 50 * 60_000, departAt: 'x' }, h + 20 * 60_000)).toBe(false);
   });
 
   it('shows in the app with an unread count; acknowledging is the owner’s alone', async () => {
