@@ -44,7 +44,8 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
   const plans = await plansForDepartures({ orgId: user.orgId, departures, now: new Date(nowMs) });
   const readiness = Object.fromEntries(plans.map((p) => [p.departureId, <ReadinessCell key={p.departureId} plan={p} units={user.tempUnit} canConfirm={can(user.role, 'plans:manage')} />]));
   // The oil-too-cold warning: my own departures (as pilot) that will not be ready.
-  const tooCold = plans.filter((p) => p.pilot.id === user.id && (p.status === 'short' || p.status === 'unplanned'));
+  // The banner warns about the coming morning (within 36 h); later days show it in their row.
+  const tooCold = plans.filter((p) => p.pilot.id === user.id && (p.status === 'short' || p.status === 'unplanned') && Date.parse(p.departAt) < nowMs + 36 * HOUR_MS);
   const choices = fleet.filter((a) => !flies || flies.includes(a.id)).flatMap(bookable);
   const pilotChoices = bookAny ? [{ id: user.id, name: user.name }, ...pilots.filter((p) => p.id !== user.id)] : undefined;
   return (
