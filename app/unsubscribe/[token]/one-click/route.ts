@@ -17,8 +17,8 @@ export async function POST(req: Request, ctx: { params: Promise<{ token: string 
     const v = verifyUnsubscribe(token);
     const done = v ? await unsubscribe(v) : null;
     if (fromPage) {
-      const url = new URL(`/unsubscribe/${encodeURIComponent(token)}${done ? '?done=1' : ''}`, req.url);
-      return NextResponse.redirect(url, 303);
+      // A relative Location keeps the browser on the host it came from (behind a proxy too).
+      return new Response(null, { status: 303, headers: { Location: `/unsubscribe/${encodeURIComponent(token)}${done ? '?done=1' : ''}` } });
     }
     if (!done) return NextResponse.json({ error: 'not_found', message: 'This unsubscribe link is not valid.' }, { status: 404 });
     return NextResponse.json({ ok: true, message: 'Unsubscribed.' });
