@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, call, freshDatabase, signInAs, signOut } from './helpers';
-import { testSmtp, type TestSmtp } from '../unit/mail/testSmtp';
+import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../unit/mail/testSmtp';
 
 // The alerts end to end against a real SMTP server (smtp-server on 127.0.0.1, port 0): evaluation on the
 // seeded demo writes alerts and outbox rows, delivery sends them through nodemailer via SMTP_URL.
@@ -10,15 +10,10 @@ let models: Awaited<ReturnType<typeof freshDatabase>>;
 const now0 = new Date();
 
 beforeAll(async () => {
-  smtp = await testSmtp();
-  process.env.SMTP_URL = smtp.url;
+  smtp = await startSmtpUrl();
   models = await freshDatabase();
 });
-afterAll(async () => {
-  delete process.env.SMTP_URL;
-  (await import('@/lib/env')).resetEnvCache();
-  await smtp.stop();
-});
+afterAll(() => stopSmtpUrl(smtp));
 
 async function evaluate(now: Date) {
   const { evaluateAlerts } = await import('@/lib/alerts/evaluate');

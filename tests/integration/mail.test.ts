@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, call, freshDatabase, signInAs } from './helpers';
-import { testSmtp, type TestSmtp } from '../unit/mail/testSmtp';
+import { startSmtpUrl, stopSmtpUrl, testSmtp, type TestSmtp } from '../unit/mail/testSmtp';
 
 // The outbox and its delivery against a real SMTP server started here (smtp-server, 127.0.0.1, port 0),
 // reached through SMTP_URL: refusals and outages, a worker dying mid-delivery, two workers at once,
@@ -13,15 +13,10 @@ const at = (ms: number) => new Date(t0.getTime() + ms);
 const MIN = 60_000;
 
 beforeAll(async () => {
-  smtp = await testSmtp();
-  process.env.SMTP_URL = smtp.url;
+  smtp = await startSmtpUrl();
   models = await freshDatabase();
 });
-afterAll(async () => {
-  delete process.env.SMTP_URL;
-  (await import('@/lib/env')).resetEnvCache();
-  await smtp.stop();
-});
+afterAll(() => stopSmtpUrl(smtp));
 
 async function enqueue(key: string, email = DEMO.pilot, now = t0) {
   const { enqueueMail } = await import('@/lib/mail/outbox');

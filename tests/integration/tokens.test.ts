@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import bcrypt from 'bcryptjs';
 import { DEMO, call, freshDatabase, signInAs, signOut } from './helpers';
-import { testSmtp, type TestSmtp } from '../unit/mail/testSmtp';
+import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../unit/mail/testSmtp';
 
 // Invitations and password resets by e-mail with signed, expiring, single-use tokens, delivered to a
 // real SMTP server started here.
@@ -10,15 +10,10 @@ let smtp: TestSmtp;
 let models: Awaited<ReturnType<typeof freshDatabase>>;
 
 beforeAll(async () => {
-  smtp = await testSmtp();
-  process.env.SMTP_URL = smtp.url;
+  smtp = await startSmtpUrl();
   models = await freshDatabase();
 });
-afterAll(async () => {
-  delete process.env.SMTP_URL;
-  (await import('@/lib/env')).resetEnvCache();
-  await smtp.stop();
-});
+afterAll(() => stopSmtpUrl(smtp));
 
 async function deliver(now = new Date()) {
   const { deliverDue } = await import('@/lib/mail/deliver');

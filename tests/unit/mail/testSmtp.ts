@@ -69,3 +69,17 @@ export async function testSmtp(opts: { dataDelayMs?: number } = {}) {
 }
 
 export type TestSmtp = Awaited<ReturnType<typeof testSmtp>>;
+
+/** A test server that the app reaches through SMTP_URL (the configured-server path). */
+export async function startSmtpUrl(opts: { dataDelayMs?: number } = {}): Promise<TestSmtp> {
+  const smtp = await testSmtp(opts);
+  process.env.SMTP_URL = smtp.url;
+  (await import('@/lib/env')).resetEnvCache();
+  return smtp;
+}
+
+export async function stopSmtpUrl(smtp: TestSmtp | undefined) {
+  delete process.env.SMTP_URL;
+  (await import('@/lib/env')).resetEnvCache();
+  await smtp?.stop();
+}
