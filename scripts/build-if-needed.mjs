@@ -6,7 +6,7 @@ import path from 'node:path';
 
 const root = process.cwd();
 const buildId = path.join(root, process.env.NEXT_DIST_DIR || '.next', 'BUILD_ID');
-const watched = ['app', 'components', 'lib', 'models', 'proxy.ts', 'next.config.js', 'tailwind.config.ts', 'package-lock.json'];
+const watched = ['app', 'components', 'lib', 'models', 'proxy.ts', 'instrumentation.ts', 'next.config.js', 'tailwind.config.ts', 'package-lock.json'];
 
 function newest(p) {
   if (!fs.existsSync(p)) return 0;

@@ -48,6 +48,9 @@ export function SignInForm({ next, initialError }: { next?: string; initialError
           {pending ? 'Signing in…' : 'Sign in'}
         </Button>
       </form>
+      <p className="mt-4 text-center text-sm">
+        <a href="/forgot" className="font-medium text-ice-700 underline-offset-2 hover:underline dark:text-ice-300">Forgot your password?</a>
+      </p>
     </Card>
   );
 }
