@@ -17,9 +17,6 @@ export function toDisplayDelta(k: number, unit: TempUnit): number {
 export function tempLabel(unit: TempUnit): string {
   return unit === 'F' ? '°F' : '°C';
 }
-export function formatTemp(c: number, unit: TempUnit, digits = 0): string {
-  return `${toDisplayTemp(c, unit).toFixed(digits)} ${tempLabel(unit)}`;
-}
 
 export function toDisplayVolume(l: number, unit: VolumeUnit): number {
   return unit === 'qt' ? l / LITRES_PER_US_QUART : l;

@@ -1,12 +1,13 @@
 // Display helpers for airfield and forecast views (client and server). Temperatures are stored in °C;
 // people may read them in °F (their preference).
-export type TempUnit = 'C' | 'F';
+import { toDisplayTemp, type TempUnit } from '@/lib/units';
+
+export type { TempUnit };
 
 const MINUS = '\u2212';
 
-export function toUnit(c: number, unit: TempUnit): number {
-  return unit === 'F' ? c * 1.8 + 32 : c;
-}
+/** °C to the reader's unit (the one conversion, in lib/units). */
+export const toUnit = toDisplayTemp;
 
 /** "−14.2 °C" (one decimal), or "6 °F". */
 export function formatTemp(c: number | null | undefined, unit: TempUnit = 'C', digits = 1): string {
