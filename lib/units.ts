@@ -27,3 +27,7 @@ export function fromDisplayVolume(v: number, unit: VolumeUnit): number {
 export function volumeLabel(unit: VolumeUnit): string {
   return unit === 'qt' ? 'US qt' : 'L';
 }
+
+export function formatTemp(c: number, unit: TempUnit, digits = 0): string {
+  return `${toDisplayTemp(c, unit).toFixed(digits)} ${tempLabel(unit)}`;
+}
