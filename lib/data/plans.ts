@@ -194,10 +194,10 @@ async function contextFor(orgId: number, departures: DepartureRecord[], now: Dat
  * Plans for the given departures: each is read from its stored Heat plan when the inputs are unchanged,
  * otherwise recomputed and stored (a confirmation lapses when the inputs change).
  */
-async function plansFor(orgId: number, departures: DepartureRecord[], now: Date, refresh: 'never' | 'if-old'): Promise<PlanView[]> {
+async function plansFor(orgId: number, departures: DepartureRecord[], now: Date, refresh: 'never' | 'if-old', given?: Context): Promise<PlanView[]> {
   if (!departures.length) return [];
   const { HeatPlan, User } = db();
-  const ctx = await contextFor(orgId, departures, now, refresh);
+  const ctx = given ?? (await contextFor(orgId, departures, now, refresh));
   const stored = await HeatPlan.findAll({ where: { organizationId: orgId, departureId: departures.map((d) => d.id) } });
   const byDep = new Map(stored.map((p) => [p.departureId, p]));
   const confirmers = new Map(
@@ -257,7 +257,7 @@ function bySwitchOn(a: PlanView, b: PlanView) {
   return ta - tb || Date.parse(a.departAt) - Date.parse(b.departAt);
 }
 
-/** The window of "the next morning": from now to the end of tomorrow 14:00 UTC-ish, read per airfield as local 14:00 tomorrow. */
+/** The window of "the next morning": from half an hour ago to 36 hours ahead (covers tomorrow morning at any hour of today). */
 export function nextMorningWindow(now: Date) {
   return { fromMs: now.getTime() - 30 * 60_000, toMs: now.getTime() + 36 * 3_600_000 };
 }
@@ -291,8 +291,9 @@ export async function plansBetween({ orgId, fromMs, toMs, now = new Date(), refr
 /** One departure's plan and its Soak forecast curve (with the plan's heater bands). */
 export async function planDetail({ orgId, departureId, actor, now = new Date() }: { orgId: number; departureId: number; actor: Actor; now?: Date }) {
   const d = await getDeparture({ orgId, departureId, actor });
-  const [view] = await plansFor(orgId, [d], now, 'if-old');
-  const ctx = await contextFor(orgId, [d], now, 'never');
+  // One read of the forecast and tariff serves both the plan and its curve.
+  const ctx = await contextFor(orgId, [d], now, 'if-old');
+  const [view] = await plansFor(orgId, [d], now, 'if-old', ctx);
   const rec = recordsFor(d, ctx);
   let series: { at: string; outsideC: number; shelterC: number; oilC: number; engineC: number | null }[] = [];
   if (rec) {
