@@ -1,4 +1,4 @@
-/** The cautions shown beside every heat plan and warning (PRODUCT.md, Safety). */
+/** The cautions shown beside every heat plan and warning (docs/product.md, Safety). */
 export function HeatCautions({ compact = false }: { compact?: boolean }) {
   return (
     <div role="note" className="rounded-xl border border-amber-300 bg-amber-50 px-4 py-3 text-xs text-amber-950 dark:border-amber-700 dark:bg-amber-950 dark:text-amber-100">

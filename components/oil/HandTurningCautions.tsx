@@ -1,4 +1,4 @@
-/** The cautions for the morning oil check and turning the engine through by hand (PRODUCT.md, Safety). */
+/** The cautions for the morning oil check and turning the engine through by hand (docs/product.md, Safety). */
 export function HandTurningCautions() {
   return (
     <div role="note" aria-labelledby="hand-turning-h" className="rounded-xl border border-amber-300 bg-amber-50 px-4 py-3 text-sm text-amber-950 dark:border-amber-700 dark:bg-amber-950 dark:text-amber-100">

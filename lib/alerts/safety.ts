@@ -1,4 +1,4 @@
-// The safety lines (PRODUCT.md, Safety) carried by alerts and e-mails.
+// The safety lines (docs/product.md, Safety) carried by alerts and e-mails.
 export const SAFETY = {
   estimates:
     "Thawline gives estimates. Follow the engine and aircraft manufacturer's cold-weather instructions, your operator's procedures and local regulations; they override anything Thawline shows.",

@@ -3,7 +3,7 @@
 //
 // Over an interval where the surroundings are linear, T∞ = Ta + b·t, the exact solution is
 //   T(t) = T∞(t) − b·τ + (T0 − Ta + b·τ)·e^(−t/τ)
-// (Incropera §5.1–5.2 lumped capacitance, integrated for linear surroundings; SOURCES.md). The logged
+// (Incropera §5.1–5.2 lumped capacitance, integrated for linear surroundings; docs/sources.md). The logged
 // ambient is linear between its samples, so the curve is exact sample to sample.
 
 /** Oil temperature at each time (s from the start) for the one-node model. `ambient` null: constant `level`. */

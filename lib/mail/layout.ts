@@ -20,7 +20,7 @@ export interface EmailDoc {
   /** A quieter second link under the button. */
   secondary?: { label: string; url: string };
   afterAction?: string[];
-  /** Safety lines (PRODUCT.md, Safety); at least the estimates line. */
+  /** Safety lines (docs/product.md, Safety); at least the estimates line. */
   cautions: string[];
   /** Why the recipient gets this message. */
   reason: string;

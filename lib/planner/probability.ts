@@ -2,7 +2,7 @@
 // linear), so a normal error on the forecast gives a normal error on the oil:
 //   uniform:  oil error = s·e, e ~ N(0, σ(lead at departure)²), s = ∂oil/∂(uniform shift);
 //   per-hour: oil error = Σ s_i·e_i, e_i ~ N(0, σ(lead_i)²), corr(e_i, e_j) = exp(−|t_i − t_j| / L).
-// σ(lead) is the 2 m temperature forecast error of lib/weather (SOURCES.md "Forecast data", from
+// σ(lead) is the 2 m temperature forecast error of lib/weather (docs/sources.md "Forecast data", from
 // memory). P(oil ≥ ready) = Φ((oil − ready) / σ_oil), Φ from mathjs erf. The heater schedule does
 // not change the sensitivities (superposition), so they are taken from the free run.
 import { erf } from 'mathjs';

@@ -3,7 +3,7 @@
 /** Engine oil density near 15 °C, kg/L: 880–890 kg/m³ (Incropera Table A.5, from memory). */
 export const OIL_DENSITY_KG_PER_L = 0.885;
 
-/** Engine oil specific heat, J/kg·K: the linear fit cp ≈ 1.80 + 0.0042·T(°C) kJ/kg·K of the SOURCES tables. */
+/** Engine oil specific heat, J/kg·K: the linear fit cp ≈ 1.80 + 0.0042·T(°C) kJ/kg·K of the docs/sources.md tables. */
 export function oilSpecificHeat(tempC: number): number {
   return 1800 + 4.2 * tempC;
 }

@@ -3,7 +3,7 @@
 // Pure TypeScript — no database, network, clock or framework. Inputs are plain data (`SoakModel`,
 // times as epoch ms); outputs are typed arrays or plain objects.
 //
-// The model (ARCHITECTURE.md, "The soak model"): a linear lumped heat balance.
+// The model (docs/soak-model.md): a linear lumped heat balance.
 //   shelter air  Cs·dTs/dt = −Gs·(Ts − Tout) + a·A·I_sun + P_space   (hangar / T-hangar; heated
 //                hangars hold their set-point while the heating power allows; tie-down: Ts = Tout)
 //   oil          Co·dTo/dt = −Go·(To − Ts) − Goe·(To − Te) + Po

@@ -19,7 +19,7 @@ import type { NodeName } from './types';
 
 export type HeaterKind = 'oil-pad' | 'cylinder-bands' | 'forced-air-electric' | 'forced-air-propane';
 
-/** Typical heaters (SOURCES "Heaters", memory / trade press; for presets and the demo only). */
+/** Typical heaters (docs/sources.md "Heaters", memory / trade press; for presets and the demo only). */
 export const HEATER_KINDS: Record<HeaterKind, { label: string; typicalPowerW: number; node: NodeName }> = {
   'oil-pad': { label: 'Oil sump/tank pad', typicalPowerW: 200, node: 'oil' }, // 100–500 W
   'cylinder-bands': { label: 'Cylinder bands', typicalPowerW: 50, node: 'engine' }, // 25–50 W each
@@ -73,7 +73,7 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     couplingWPerK: 1.0,
     coverFactor: DEFAULT_COVER_FACTOR,
     windCoefficient: DEFAULT_WIND_COEFFICIENT,
-    // A small tank pad at the low end of 100–500 W (SOURCES "Heaters").
+    // A small tank pad at the low end of 100–500 W (docs/sources.md "Heaters").
     heaters: [{ kind: 'oil-pad', powerW: 100, node: 'oil' }],
     // Normal oil 90–110 °C for this class (memory); shutdown after taxi at the low end (estimate).
     shutdownOilC: 90,
@@ -98,7 +98,7 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     couplingWPerK: 12,
     coverFactor: DEFAULT_COVER_FACTOR,
     windCoefficient: DEFAULT_WIND_COEFFICIENT,
-    // Sump pad 200 W (100–500 W) and four 50 W cylinder bands (25–50 W each) (SOURCES "Heaters").
+    // Sump pad 200 W (100–500 W) and four 50 W cylinder bands (25–50 W each) (docs/sources.md "Heaters").
     heaters: [
       { kind: 'oil-pad', powerW: 200, node: 'oil' },
       { kind: 'cylinder-bands', powerW: 200, node: 'engine' },
@@ -123,7 +123,7 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     couplingWPerK: 16, // estimate, as the four scaled by size
     coverFactor: DEFAULT_COVER_FACTOR,
     windCoefficient: DEFAULT_WIND_COEFFICIENT,
-    // Sump pad 300 W and six 50 W cylinder bands (SOURCES "Heaters").
+    // Sump pad 300 W and six 50 W cylinder bands (docs/sources.md "Heaters").
     heaters: [
       { kind: 'oil-pad', powerW: 300, node: 'oil' },
       { kind: 'cylinder-bands', powerW: 300, node: 'engine' },

@@ -111,7 +111,7 @@ const SIGMA_POINTS: readonly (readonly [number, number])[] = [
 
 /**
  * One standard deviation of the 2 m temperature forecast error, K, at a lead time in hours.
- * From memory (SOURCES.md, "Forecast data"): roughly 1–2 K at 12–24 h and 2–3 K at 48–72 h; the
+ * From memory (docs/sources.md, "Forecast data"): roughly 1–2 K at 12–24 h and 2–3 K at 48–72 h; the
  * values between and beyond are a smooth reading of that, capped at 5 K. Past hours (negative lead)
  * get the analysis-level value.
  */

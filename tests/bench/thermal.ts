@@ -153,7 +153,7 @@ function runOde(models: SoakModel[], tol: number): { ms: number; nodeSteps: numb
   return { ms: performance.now() - t0, nodeSteps, checksum };
 }
 
-/** Error against the closed form T(t) = T∞(t) − bτ + (T0 − Ta + bτ)·e^(−t/τ) (SOURCES: linear surroundings). */
+/** Error against the closed form T(t) = T∞(t) − bτ + (T0 − Ta + bτ)·e^(−t/τ) (docs/sources.md: linear surroundings). */
 function analyticErrors(tol: number): { exact: number; ode: number } {
   const tau = 3 * 3600;
   const G = 10;

@@ -28,7 +28,7 @@ describe('airfield tariffs', () => {
     expect((await call(route.GET as never, { params: { id: await airfieldId('Kettle Lake') } })).status).toBe(401);
   });
 
-  it('the demo airfields carry a stored three-period tariff with the evening peak 2–3× the night price (SOURCES.md, from memory)', async () => {
+  it('the demo airfields carry a stored three-period tariff with the evening peak 2–3× the night price (docs/sources.md, from memory)', async () => {
     await signInAs(DEMO.operator);
     const r = await call(route.GET as never, { params: { id: await airfieldId('Kettle Lake') } });
     expect(r.status).toBe(200);

@@ -8,8 +8,8 @@ const utc = (s: string) => Date.parse(s);
 
 // Night 22–07, day 07–17 and 21–22, evening peak 17–21 on weekdays; weekends night and day only.
 // The structure (periods, 12×24 weekday/weekend month-by-hour matrices) is the OpenEI Utility Rate
-// Database schema's (SOURCES.md); the prices are invented for the test, peak 2.5× night
-// (SOURCES.md: peak typically 2–3× off-peak, from memory).
+// Database schema's (docs/sources.md); the prices are invented for the test, peak 2.5× night
+// (docs/sources.md: peak typically 2–3× off-peak, from memory).
 const weekdayHours = Array.from({ length: 24 }, (_, h) => (h >= 22 || h < 7 ? 0 : h >= 17 && h < 21 ? 2 : 1));
 const weekendHours = Array.from({ length: 24 }, (_, h) => (h >= 22 || h < 7 ? 0 : 1));
 const TOU: TariffShape = {

@@ -17,8 +17,8 @@ const HOUR = 3_600_000;
 
 describe('suncalc against the NREL Solar Position Algorithm test case', () => {
   // NREL SPA test case: 17 Oct 2003, latitude 39.742476°, longitude −105.1786°, UTC−7.
-  // Source: Reda & Andreas, NREL/TP-560-34302, Table A5.1 (SOURCES.md "Sun position").
-  // suncalc is a simpler algorithm: SOURCES.md allows ≈ 2 min and ≈ 0.5°.
+  // Source: Reda & Andreas, NREL/TP-560-34302, Table A5.1 (docs/sources.md "Sun position").
+  // suncalc is a simpler algorithm: docs/sources.md allows ≈ 2 min and ≈ 0.5°.
   const zone = 'Etc/GMT+7'; // the fixed zone UTC−7 (POSIX sign: "GMT+7" is seven hours behind)
   const lat = 39.742476;
   const lon = -105.1786;

@@ -13,7 +13,7 @@ function data(tS: number[], y: ArrayLike<number>, ambient: ArrayLike<number> | n
 }
 
 describe('the one-node solution over linear surroundings', () => {
-  // SOURCES.md, linear surroundings T∞ = Ta + b·t: τ = 3 h, T0 = 20 °C, Ta = 5 °C, b = −1 K/h →
+  // docs/sources.md, linear surroundings T∞ = Ta + b·t: τ = 3 h, T0 = 20 °C, Ta = 5 °C, b = −1 K/h →
   // T(1 h) = 15.598 °C, T(3 h) = 9.415 °C, T(6 h) = 3.624 °C [derived; arithmetic checked].
   it('matches the published check values', () => {
     const tS = [0, 1 * H, 3 * H, 6 * H];
@@ -48,7 +48,7 @@ describe('the one-node solution over linear surroundings', () => {
 
 describe('published cooling examples fitted back to their own time constant', () => {
   it('the linear-ambient check (τ = 3 h) from its own exact values', () => {
-    // SOURCES.md linear-surroundings check [derived; arithmetic checked].
+    // docs/sources.md linear-surroundings check [derived; arithmetic checked].
     const tS = Array.from({ length: 109 }, (_, i) => i * 300); // 9 h every 5 min
     const amb = tS.map((s) => 5 - s / H);
     const y = oneNodeCurve(tS, amb, 3 * H, 0, 20);
@@ -60,7 +60,7 @@ describe('published cooling examples fitted back to their own time constant', ()
   });
 
   it('Incropera Example 5.1: a thermocouple junction with τ = 1 s reaches 199 °C in a 200 °C gas after ≈ 5.16 s', () => {
-    // SOURCES.md: τ = 1 s; from 25 °C to 199 °C in a 200 °C stream takes t = ln(175)·τ ≈ 5.16 s
+    // docs/sources.md: τ = 1 s; from 25 °C to 199 °C in a 200 °C stream takes t = ln(175)·τ ≈ 5.16 s
     // [memory for the statement: Incropera, Example 5.1; arithmetic checked].
     const tS = Array.from({ length: 121 }, (_, i) => i * 0.05);
     const amb = tS.map(() => 200);

@@ -14,7 +14,7 @@ describe('dipstick readings corrected to 15 °C', () => {
     expect(correctedLevelL(3.0, 90)).toBeCloseTo(3.0 * (1 - 0.051), 2);
   });
 
-  it('3.0 L at 15 °C is about 3.18 L at 100 °C (SOURCES.md: ≈ 6 % from 15 to 100 °C)', () => {
+  it('3.0 L at 15 °C is about 3.18 L at 100 °C (docs/sources.md: ≈ 6 % from 15 to 100 °C)', () => {
     expect(oilVolumeAt(3.0, 15, 100)).toBeCloseTo(3.18, 2);
   });
 

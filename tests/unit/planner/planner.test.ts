@@ -174,7 +174,7 @@ describe('the usual rules beside the plan', () => {
 // One node on a tie-down with constant outside air, oil already at outside temperature: the
 // textbook lumped case. Oil under constant power P: T(t) = Teq + (T0 − Teq)·e^(−t/τ), τ = C/G,
 // Teq = T∞ + P/G (Incropera §5.1–5.2; Çengel §4-1); the shortest run ending at departure is
-// d = τ·ln((Teq − Tstart)/(Teq − Tready)) (SOURCES.md, derived).
+// d = τ·ln((Teq − Tstart)/(Teq − Tready)) (docs/sources.md, derived).
 function lumped(C: number, G: number, outC: number): SoakModel {
   return {
     startMs: START,
@@ -293,7 +293,7 @@ describe('the chance of being ready', () => {
     expect(planDeparture(request(c, { readyC: free + 5 })).probabilityReady).toBeGreaterThanOrEqual(0.5);
   });
 
-  it('σ_oil = |∂oil/∂(uniform shift)| × σ(lead) with the forecast error of lib/weather (SOURCES.md "Forecast data", from memory)', () => {
+  it('σ_oil = |∂oil/∂(uniform shift)| × σ(lead) with the forecast error of lib/weather (docs/sources.md "Forecast data", from memory)', () => {
     const c = fc.sample(caseArb(), { numRuns: 1, seed: 6 })[0];
     const now = START + 2 * H;
     const plan = planDeparture(request(c, { nowMs: now }));

@@ -1,6 +1,6 @@
 // lib/thermal/planner-support: the adjoint sensitivities the planner uses, checked against the
 // model's own forward response (heaterResponse) and against direct simulation. The model is linear
-// (ARCHITECTURE.md, "The soak model"), so these agree to rounding.
+// (docs/soak-model.md), so these agree to rounding.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { heaterResponse, simulate } from '@/lib/thermal';

@@ -20,7 +20,7 @@ function linearAmbient(o: { tauH: number; T0: number; Ta: number; bPerH: number;
   };
 }
 
-describe('linear surroundings T∞ = Ta + b·t (SOURCES: derived; arithmetic checked)', () => {
+describe('linear surroundings T∞ = Ta + b·t (docs/sources.md: derived; arithmetic checked)', () => {
   const m = linearAmbient({ tauH: 3, T0: 20, Ta: 5, bPerH: -1, hours: 6 });
 
   it('τ = 3 h, T0 = 20 °C, Ta = 5 °C, b = −1 K/h → 15.598, 9.415, 3.624 °C at 1, 3, 6 h', () => {
@@ -57,7 +57,7 @@ describe('stiff nodes', () => {
   });
 });
 
-describe('shortest heater run d = τ·ln((Teq − Tstart)/(Teq − Tready)) (SOURCES: derived)', () => {
+describe('shortest heater run d = τ·ln((Teq − Tstart)/(Teq − Tready)) (docs/sources.md: derived)', () => {
   it('a 400 W heater on a 3 h node from −10 °C reaches 15 °C when the formula says', () => {
     const m = linearAmbient({ tauH: 3, T0: -10, Ta: -10, bPerH: 0, hours: 10, G: 10, powerW: 400 });
     const Teq = -10 + 400 / 10;

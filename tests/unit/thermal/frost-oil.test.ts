@@ -11,7 +11,7 @@ import {
   relativeHumidityPercent,
 } from '@/lib/thermal';
 
-describe('dew point and frost point (SOURCES: computed from those constants)', () => {
+describe('dew point and frost point (docs/sources.md: computed from those constants)', () => {
   it('−5 °C, RH 80 % → dew point −7.92 °C, frost point −7.02 °C', () => {
     expect(dewPointC(-5, 80)).toBeCloseTo(-7.92, 2);
     expect(frostPointC(-5, 80)).toBeCloseTo(-7.02, 2);

@@ -10,7 +10,7 @@ describe('engine classes', () => {
     expect(ENGINE_CLASSES['ac-wetsump-4'].oilL).toBe(7.5);
   });
 
-  it('oil heat capacity = litres × 0.885 kg/L × cp(40 °C) from the SOURCES fit 1.80 + 0.0042·T kJ/kg·K', () => {
+  it('oil heat capacity = litres × 0.885 kg/L × cp(40 °C) from the docs/sources.md fit 1.80 + 0.0042·T kJ/kg·K', () => {
     expect(oilHeatCapacity(3)).toBeCloseTo(3 * 0.885 * 1968, 6);
   });
 

@@ -1,6 +1,6 @@
 // suncalc against the NREL Solar Position Algorithm test case (Reda & Andreas, NREL/TP-560-34302,
 // Table A5.1, published): 17 Oct 2003 12:30:30 local (UTC−7), 39.742476° N, 105.1786° W.
-// suncalc is a simpler algorithm: ≈ 0.5° and ≈ 2 min allowed (SOURCES).
+// suncalc is a simpler algorithm: ≈ 0.5° and ≈ 2 min allowed (docs/sources.md).
 import { getPosition, getTimes } from 'suncalc';
 import { describe, expect, it } from 'vitest';
 import { sunElevationDeg } from '@/lib/thermal';
