@@ -77,16 +77,23 @@ export interface NightWindow {
 }
 
 /**
- * "Tonight" at an airfield: from `fromHour` (default 18:00) on the evening to `toHour` (default 09:00)
- * the next morning, local time. Before `toHour` in the morning it is the night still under way
- * (it began the evening before); from then on, the coming night.
+ * The night being planned at an airfield ("tonight" on every page): from `fromHour` (default 18:00) on
+ * the evening to `toHour` (default 09:00) the next morning, local time. Until `switchHour` (default
+ * 06:00) it is the night still under way (it began the evening before; its departures are close);
+ * from then on it is the coming night, the one the Morning board plans for. So at 08:00 the map, the
+ * airfields and the board all speak of the night that ends tomorrow morning, never of the one ending.
  */
-export function tonightWindow(zone: string, now: Date, opts: { fromHour?: number; toHour?: number } = {}): NightWindow {
+export function tonightWindow(
+  zone: string,
+  now: Date,
+  opts: { fromHour?: number; toHour?: number; switchHour?: number } = {},
+): NightWindow {
   const fromHour = opts.fromHour ?? 18;
   const toHour = opts.toHour ?? 9;
+  const switchHour = Math.min(opts.switchHour ?? 6, toHour);
   const nowMs = now.getTime();
   const today = localDateOf(zone, nowMs);
-  const evening = localHourOf(zone, nowMs) < toHour ? addDays(today, -1) : today;
+  const evening = localHourOf(zone, nowMs) < switchHour ? addDays(today, -1) : today;
   const next = addDays(evening, 1);
   return {
     fromMs: zonedTimeToUtc(zone, evening.year, evening.month, evening.day, fromHour),

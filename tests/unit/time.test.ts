@@ -66,7 +66,7 @@ describe('zone arithmetic', () => {
     expect(localHourOf('Europe/Helsinki', Date.UTC(2025, 0, 15, 16))).toBe(18);
   });
 
-  it('tonight is 18:00 → 09:00 local; before 09:00 it is the night under way', () => {
+  it('tonight is 18:00 → 09:00 local; before 06:00 it is the night under way, from then the coming one', () => {
     const evening = tonightWindow('Europe/Helsinki', new Date('2025-01-15T12:00:00Z'));
     expect(new Date(evening.fromMs).toISOString()).toBe('2025-01-15T16:00:00.000Z');
     expect(new Date(evening.toMs).toISOString()).toBe('2025-01-16T07:00:00.000Z');
@@ -74,6 +74,30 @@ describe('zone arithmetic', () => {
     expect(early.fromMs).toBe(evening.fromMs);
     const after = tonightWindow('Europe/Helsinki', new Date('2025-01-16T07:30:00Z')); // 09:30 local
     expect(after.fromMs).toBe(evening.fromMs + 24 * HOUR);
+    // 08:00 local: the night that is ending is no longer the one being planned.
+    const morning = tonightWindow('Europe/Helsinki', new Date('2025-01-16T06:00:00Z'));
+    expect(morning.fromMs).toBe(evening.fromMs + 24 * HOUR);
+    expect(morning.evening).toEqual({ year: 2025, month: 1, day: 16 });
+  });
+
+  it('the night being planned follows each zone: 08:00 in Anchorage and in Tokyo at the same instant differ', () => {
+    // One instant, 2025-01-16T17:00Z: 08:00 in America/Anchorage (UTC−9) → the coming night of the 16th;
+    // 02:00 on the 17th in Asia/Tokyo (UTC+9) → the night under way, begun the evening of the 16th.
+    const t = new Date('2025-01-16T17:00:00Z');
+    expect(tonightWindow('America/Anchorage', t).evening).toEqual({ year: 2025, month: 1, day: 16 });
+    expect(tonightWindow('Asia/Tokyo', t).evening).toEqual({ year: 2025, month: 1, day: 16 });
+    expect(new Date(tonightWindow('Asia/Tokyo', t).toMs).toISOString()).toBe('2025-01-17T00:00:00.000Z');
+    expect(new Date(tonightWindow('America/Anchorage', t).toMs).toISOString()).toBe('2025-01-17T18:00:00.000Z');
+  });
+
+  it('the switch to the coming night happens at 06:00 local on the day of the autumn clock change', () => {
+    // EU clocks go back on the last Sunday of October at 01:00 UTC (from memory): 26 October 2025,
+    // so Helsinki is UTC+3 before and UTC+2 after; 06:00 local that morning is 04:00Z.
+    const before = tonightWindow('Europe/Helsinki', new Date('2025-10-26T03:59:00Z'));
+    const after = tonightWindow('Europe/Helsinki', new Date('2025-10-26T04:00:00Z'));
+    expect(before.evening).toEqual({ year: 2025, month: 10, day: 25 });
+    expect(after.evening).toEqual({ year: 2025, month: 10, day: 26 });
+    expect((before.toMs - before.fromMs) / HOUR).toBe(16);
   });
 
   it('a night across the spring daylight-saving change is an hour shorter', () => {
