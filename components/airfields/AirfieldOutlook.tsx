@@ -217,7 +217,7 @@ function TonightCard({ view, unit, shelters, lowByShelter }: { view: ForecastVie
       </p>
       <div className="mt-3 flex items-end gap-3">
         <p className="text-4xl font-semibold tabular-nums tracking-tight text-slate-900 dark:text-white">{low ? formatTemp(low.tempC, unit) : '—'}</p>
-        <p className="pb-1 text-sm text-slate-600 dark:text-slate-400">{low ? <>outside low<br />at {formatTime(Date.parse(low.at), view.timeZone)}</> : 'no forecast'}</p>
+        <p className="pb-1 text-sm text-slate-600 dark:text-slate-400">{low ? <>outside low<br />at {formatDayTime(Date.parse(low.at), view.timeZone)}</> : 'no forecast'}</p>
       </div>
       {coldest ? (
         <p className="mt-3 border-t border-slate-200 pt-3 text-sm text-slate-700 dark:border-slate-800 dark:text-slate-300">

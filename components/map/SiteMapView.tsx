@@ -4,7 +4,7 @@
 import Link from 'next/link';
 import useSWR from 'swr';
 import { fetcher } from '@/lib/client/fetcher';
-import { formatAge, formatDayTime } from '@/lib/time';
+import { formatAge, formatDay, formatDayTime } from '@/lib/time';
 import { formatTemp, type TempUnit } from '@/components/airfields/format';
 import type { AirfieldRow } from '@/lib/data/airfields';
 import type { ForecastStateView, TonightSummary } from '@/lib/data/forecasts';
@@ -114,7 +114,9 @@ function AirfieldCard({ a, unit }: { a: AirfieldWithTonight; unit: TempUnit }) {
         </p>
       </div>
       <div className="flex flex-col items-end justify-center text-right">
-        <span className="text-[11px] font-medium uppercase tracking-wider text-slate-500">Low tonight</span>
+        <span className="text-[11px] font-medium uppercase tracking-wider text-slate-500">
+          {a.tonight ? `Low, night of ${formatDay(Date.parse(a.tonight.from), a.timeZone)}` : 'Low tonight'}
+        </span>
         <span className="text-2xl font-semibold tabular-nums text-slate-900 dark:text-white">{low ? formatTemp(low.tempC, unit, 0) : '—'}</span>
         {low ? <span className="text-xs text-slate-500">{formatDayTime(Date.parse(low.at), a.timeZone)}</span> : null}
       </div>
