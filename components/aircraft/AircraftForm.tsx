@@ -2,6 +2,7 @@
 import { useRouter } from 'next/navigation';
 import { useId, useMemo, useRef, useState } from 'react';
 import { Button, Card } from '@/components/ui/primitives';
+import { useConfirm } from '@/components/ui/ConfirmDialog';
 import { ResultNotice, type FormResult } from './ResultNotice';
 import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
@@ -224,9 +225,15 @@ export function AircraftForm({
     }
   }
 
+  const { confirm, dialog } = useConfirm();
   async function archive() {
     if (!initial) return;
-    if (!window.confirm(`Archive ${initial.registration}? Its departures still to come are cancelled; its history stays.`)) return;
+    const ok = await confirm({
+      title: `Archive ${initial.registration}?`,
+      body: 'Its departures still to come are cancelled; its history stays.',
+      confirmLabel: 'Archive aircraft',
+    });
+    if (!ok) return;
     setPending(true);
     const r = await sendJson<{ cancelledDepartures: number }>(`/api/aircraft/${initial.id}`, 'DELETE');
     setPending(false);
@@ -244,6 +251,7 @@ export function AircraftForm({
 
   return (
     <form onSubmit={onSubmit} noValidate aria-busy={pending} className="space-y-4">
+      {dialog}
       <div ref={summaryRef} tabIndex={-1} className="outline-none">
         <ResultNotice
           result={message}

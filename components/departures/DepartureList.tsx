@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { useMemo, useState, type ReactNode } from 'react';
 import useSWR from 'swr';
 import { Card, EmptyState } from '@/components/ui/primitives';
+import { useConfirm } from '@/components/ui/ConfirmDialog';
 import { SortHeader, theadClass, useSorted } from '@/components/airfields/sortable';
 import { fmtPower, fmtTemp, totalPowerW } from '@/components/aircraft/format';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
@@ -71,9 +72,16 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
 
   const mayCancel = (d: DepartureRecord) => manageAll || d.pilot.id === selfId || d.bookedBy.id === selfId;
 
+  const { confirm, dialog } = useConfirm();
   async function cancel(d: DepartureRecord) {
     const when = `${dayLabel(d, nowMs).toLowerCase()} at ${formatTime(d.departAtMs, d.timeZone)}`;
-    if (!window.confirm(`Cancel the departure of ${d.aircraft.registration} ${when}?`)) return;
+    const ok = await confirm({
+      title: `Cancel ${d.aircraft.registration} ${when}?`,
+      body: 'The departure and its heat plan are removed; the pilot and operators see it as cancelled.',
+      confirmLabel: 'Cancel departure',
+      cancelLabel: 'Keep departure',
+    });
+    if (!ok) return;
     setBusy(d.id);
     const r = await sendJson(`/api/departures/${d.id}`, 'DELETE');
     setBusy(null);
@@ -92,6 +100,7 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
 
   return (
     <div className="space-y-3">
+      {dialog}
       {/* Phone: cards grouped by local day */}
       <div className="space-y-5 md:hidden">
         {byDay.map((g) => (

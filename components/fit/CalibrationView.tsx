@@ -5,6 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useEffect, useState } from 'react';
 import useSWR from 'swr';
 import { Button, Card, EmptyState, Notice } from '@/components/ui/primitives';
+import { useConfirm } from '@/components/ui/ConfirmDialog';
 import { SelectField } from '@/components/ui/Field';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
 import { formatDateTime } from '@/lib/time';
@@ -120,6 +121,26 @@ export function CalibrationView({ aircraft, selectedId, initialLogs, initialProf
     }
   }
 
+  const { confirm, dialog } = useConfirm();
+  async function remove(l: LogRecord) {
+    if (!aircraftId) return;
+    const ok = await confirm({
+      title: `Remove ${l.fileName}?`,
+      body: 'The log and its fits are removed. Profile changes already applied from it stay in the history.',
+      confirmLabel: 'Remove log',
+    });
+    if (!ok) return;
+    setError('');
+    const r = await sendJson(`/api/aircraft/${aircraftId}/logs/${l.id}`, 'DELETE');
+    if (!r.ok) {
+      setError(r.message);
+      return;
+    }
+    if (active?.log.id === l.id) setActive(null);
+    setStatus(`Removed ${l.fileName}.`);
+    void logs.mutate();
+  }
+
   const logList = logs.data?.logs ?? [];
 
   if (!aircraft.length) {
@@ -128,6 +149,7 @@ export function CalibrationView({ aircraft, selectedId, initialLogs, initialProf
 
   return (
     <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_24rem]">
+      {dialog}
       <div className="min-w-0 space-y-4">
         <Card aria-labelledby="cal-upload-h">
           <h2 id="cal-upload-h" className="text-lg font-semibold">Upload a logged cool-down</h2>
@@ -196,11 +218,11 @@ export function CalibrationView({ aircraft, selectedId, initialLogs, initialProf
         ) : null}
 
         {!preview && !active ? (
-          <StoredLogs logs={logList} zone={zone} onOpen={open} busy={busy === 'open'} />
+          <StoredLogs logs={logList} zone={zone} onOpen={open} onRemove={remove} busy={busy === 'open'} />
         ) : (
           <details className="rounded-2xl border border-slate-200 bg-white p-4 dark:border-slate-800 dark:bg-slate-900">
             <summary className="min-h-11 cursor-pointer py-2 text-sm font-semibold">Stored logs of this aircraft ({logList.length})</summary>
-            <StoredLogs logs={logList} zone={zone} onOpen={open} busy={busy === 'open'} bare />
+            <StoredLogs logs={logList} zone={zone} onOpen={open} onRemove={remove} busy={busy === 'open'} bare />
           </details>
         )}
       </div>
@@ -216,7 +238,7 @@ export function CalibrationView({ aircraft, selectedId, initialLogs, initialProf
   );
 }
 
-function StoredLogs({ logs, zone, onOpen, busy, bare = false }: { logs: LogRecord[]; zone: string; onOpen: (id: number) => void; busy: boolean; bare?: boolean }) {
+function StoredLogs({ logs, zone, onOpen, onRemove, busy, bare = false }: { logs: LogRecord[]; zone: string; onOpen: (id: number) => void; onRemove: (l: LogRecord) => void; busy: boolean; bare?: boolean }) {
   const body = logs.length ? (
     <ul className="divide-y divide-slate-200 dark:divide-slate-800">
       {logs.map((l) => (
@@ -232,9 +254,14 @@ function StoredLogs({ logs, zone, onOpen, busy, bare = false }: { logs: LogRecor
               {l.fitted ? ' · fitted' : ''}
             </p>
           </div>
-          <Button variant="secondary" onClick={() => onOpen(l.id)} disabled={busy}>
-            Open<span className="sr-only"> {l.fileName}</span>
-          </Button>
+          <div className="flex gap-2">
+            <Button variant="secondary" onClick={() => onOpen(l.id)} disabled={busy}>
+              Open<span className="sr-only"> {l.fileName}</span>
+            </Button>
+            <Button variant="danger" onClick={() => onRemove(l)} disabled={busy}>
+              Remove<span className="sr-only"> {l.fileName}</span>
+            </Button>
+          </div>
         </li>
       ))}
     </ul>

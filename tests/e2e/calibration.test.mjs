@@ -97,3 +97,34 @@ test('a pilot is refused Fit from log (403) and its upload API (403)', async () 
   assert.equal(api.status(), 403);
   await context.close();
 });
+
+test('an operator removes a stored log through the confirm dialog, after first backing out', async () => {
+  const { context, page } = await signedInContext(browser, 'operator');
+  const cal = new CalibrationPage(page);
+  await cal.open();
+  await cal.chooseAircraft('Q-KAPA');
+  await cal.upload(DEMO_LOG);
+  await page.getByRole('button', { name: 'Store and fit' }).click();
+  await page.getByRole('heading', { name: 'Fit: cooldown-q-kapa.csv' }).waitFor({ timeout: 30_000 });
+  await cal.open();
+  await cal.chooseAircraft('Q-KAPA');
+  const removeButtons = page.getByRole('button', { name: 'Remove cooldown-q-kapa.csv' });
+  await removeButtons.first().waitFor();
+  const before = await removeButtons.count();
+
+  await removeButtons.first().click();
+  const dialog = page.getByRole('dialog', { name: 'Remove cooldown-q-kapa.csv?' });
+  await dialog.waitFor();
+  await dialog.getByRole('button', { name: 'Keep' }).click();
+  await dialog.waitFor({ state: 'detached' });
+  assert.equal(await removeButtons.count(), before);
+
+  await removeButtons.first().click();
+  await dialog.getByRole('button', { name: 'Remove log' }).click();
+  await cal.status().filter({ hasText: 'Removed cooldown-q-kapa.csv' }).waitFor();
+  await page.waitForFunction(
+    (n) => document.querySelectorAll('button[aria-label], button').length >= 0 && [...document.querySelectorAll('button')].filter((b) => b.textContent === 'Remove cooldown-q-kapa.csv').length === n,
+    before - 1,
+  );
+  await context.close();
+});

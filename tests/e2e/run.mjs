@@ -8,6 +8,8 @@ import os from 'node:os';
 import path from 'node:path';
 
 const root = process.cwd();
+// `npm run test:e2e -- calibration map` runs only the files whose names contain one of the words.
+const only = process.argv.slice(2);
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'thawline-e2e-'));
 const port = await new Promise((res) => {
   const srv = net.createServer();
@@ -48,7 +50,7 @@ async function waitHealthy() {
 let code = 1;
 try {
   await waitHealthy();
-  const files = fs.readdirSync(path.join(root, 'tests/e2e')).filter((f) => f.endsWith('.test.mjs')).map((f) => path.join('tests/e2e', f));
+  const files = fs.readdirSync(path.join(root, 'tests/e2e')).filter((f) => f.endsWith('.test.mjs')).filter((f) => !only.length || only.some((o) => f.includes(o))).map((f) => path.join('tests/e2e', f));
   const t = spawn(process.execPath, ['--test', '--test-concurrency=1', ...files], { env: { ...env, E2E_BASE_URL: base }, stdio: 'inherit' });
   code = await new Promise((res) => t.on('exit', (c) => res(c ?? 1)));
 } catch (e) {
