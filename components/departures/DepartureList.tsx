@@ -196,7 +196,7 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                   <td className="px-4 py-2.5 text-right">
                     <ReadyBadge d={d} unit={tempUnit} />
                   </td>
-                  {hasExtra ? <td className="min-w-[13rem] px-4 py-2.5">{extraOf(d)}</td> : null}
+                  {hasExtra ? <td className="min-w-[11rem] px-4 py-2.5">{extraOf(d)}</td> : null}
                   <td className="px-3 py-2.5 text-right">
                     {mayCancel(d) ? (
                       <button

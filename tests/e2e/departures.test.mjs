@@ -109,3 +109,23 @@ test('a pilot sees aircraft read-only; an operator gets the profile form', async
   await op.page.getByRole('status').filter({ hasText: 'Saved Q-SIPI' }).waitFor();
   await op.context.close();
 });
+
+for (const width of [1280, 1440, 1920]) {
+  test(`the operator's Departures page has no sideways scroll at ${width} px and keeps Readiness and Cancel in view`, async () => {
+    const { context, page } = await signedInContext(browser, 'operator', { width, height: 900 });
+    const dep = new DeparturesPage(page);
+    await dep.open();
+    await dep.list().getByRole('table').waitFor();
+    const over = await page.evaluate(() =>
+      [document.documentElement, ...document.querySelectorAll('table')].map((el) => {
+        const box = el === document.documentElement ? el : el.parentElement;
+        return box.scrollWidth - box.clientWidth;
+      }),
+    );
+    assert.ok(over.every((d) => d <= 0), `overflow by ${over.join(', ')} px`);
+    const cancel = dep.list().getByRole('button', { name: /^Cancel / }).first();
+    const box = await cancel.boundingBox();
+    assert.ok(box && box.x + box.width <= width, 'the Cancel button is inside the window');
+    await context.close();
+  });
+}

@@ -56,12 +56,12 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
       />
       <OilTooColdBanner plans={tooCold} units={user.tempUnit} />
       {choices.length ? (
-        <a href="#book-h" className="mb-4 inline-flex min-h-11 items-center rounded-xl bg-ice-700 px-4 text-sm font-semibold text-white hover:bg-ice-800 dark:bg-ice-500 dark:text-slate-950 xl:hidden">
+        <a href="#book-h" className="mb-4 inline-flex min-h-11 items-center rounded-xl bg-ice-700 px-4 text-sm font-semibold text-white hover:bg-ice-800 dark:bg-ice-500 dark:text-slate-950">
           Book a departure
         </a>
       ) : null}
-      <div className="grid gap-5 xl:grid-cols-[21rem_1fr] xl:items-start">
-        <div className="order-2 scroll-mt-20 xl:sticky xl:top-4 xl:order-1">
+      <div className="grid gap-5">
+        <div className="order-2 max-w-xl scroll-mt-20">
           {choices.length ? (
             <BookingForm aircraft={choices} pilots={pilotChoices} selfId={user.id} tempUnit={user.tempUnit} nowMs={nowMs} preselect={pre ? Number(pre) : undefined} />
           ) : (
@@ -70,7 +70,7 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
             </p>
           )}
         </div>
-        <section aria-labelledby="upcoming-h" className="order-1 min-w-0 xl:order-2">
+        <section aria-labelledby="upcoming-h" className="order-1 min-w-0">
           <h2 id="upcoming-h" className="mb-3 text-lg font-semibold">{bookAny ? 'Upcoming departures' : 'Your upcoming departures'}</h2>
           <DepartureList initial={departures} tempUnit={user.tempUnit} selfId={user.id} manageAll={bookAny} nowMs={nowMs} extraById={readiness} extraLabel="Readiness at departure" />
         </section>
