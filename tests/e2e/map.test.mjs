@@ -63,6 +63,22 @@ test('with no tile server configured the outline basemap draws the land, under t
   await context.close();
 });
 
+test('on a phone the key starts folded so it covers no tag, and opens from its button', async () => {
+  const { context, page } = await signedInContext(browser, 'manager', { width: 390, height: 844 });
+  const map = new SiteMapPage(page);
+  await map.open();
+  await page.locator('.leaflet-marker-icon[title*="(XKTL)"]').waitFor();
+  const key = page.getByRole('button', { name: 'Key' });
+  await key.waitFor();
+  assert.equal(await key.getAttribute('aria-expanded'), 'false');
+  assert.equal(await page.getByText('Tonight’s forecast low', { exact: true }).isVisible(), false);
+  await key.click();
+  await page.getByText('Tonight’s forecast low', { exact: true }).waitFor();
+  await page.getByRole('button', { name: 'Hide key' }).click();
+  await page.getByText('Tonight’s forecast low', { exact: true }).waitFor({ state: 'hidden' });
+  await context.close();
+});
+
 test('with the tile server unreachable the outline basemap is still visible', async () => {
   const [port, closedPort] = [await freePort(), await freePort()];
   const base = `http://127.0.0.1:${port}`;
