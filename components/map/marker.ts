@@ -4,16 +4,8 @@
 import type { TempUnit } from '@/components/airfields/format';
 import { formatTempShort } from '@/components/airfields/format';
 
-export const READINESS = ['ready', 'warming', 'short', 'unplanned'] as const;
-export type Readiness = (typeof READINESS)[number];
-
-/** Label, glyph and CSS modifier of each readiness state (the glyph keeps it readable without colour). */
-export const READINESS_STYLE: Record<Readiness, { label: string; glyph: string; hint: string }> = {
-  ready: { label: 'Ready', glyph: '✓', hint: 'every aircraft will be warm enough' },
-  warming: { label: 'Warming', glyph: '▲', hint: 'a heat plan is running, on track' },
-  short: { label: 'Short', glyph: '!', hint: 'a plan cannot reach the ready temperature in time' },
-  unplanned: { label: 'Unplanned', glyph: '?', hint: 'needs heat, no plan yet' },
-};
+import { READINESS, READINESS_STYLE, type Readiness } from '@/lib/plans/state';
+export { READINESS, READINESS_STYLE, type Readiness };
 
 export interface MarkerContent {
   ident: string;
