@@ -9,6 +9,8 @@ export { READINESS, READINESS_STYLE, type Readiness };
 
 export interface MarkerContent {
   ident: string;
+  /** The field's name, shown under its identifier (codes alone mean little to a visitor). */
+  name?: string;
   lowC: number | null;
   unit: TempUnit;
   readiness?: Readiness;
@@ -37,7 +39,7 @@ export function markerHtml(m: MarkerContent): string {
     .join(' ');
   return (
     `<div class="${classes}">` +
-    `<div class="tl-mk-tag">${glyph}<span class="tl-mk-ident">${escapeHtml(m.ident)}</span><span class="tl-mk-low">${low}</span></div>` +
+    `<div class="tl-mk-tag">${glyph}<span class="tl-mk-names"><span class="tl-mk-ident">${escapeHtml(m.ident)}</span>${m.name ? `<span class="tl-mk-name">${escapeHtml(m.name)}</span>` : ''}</span><span class="tl-mk-low">${low}</span></div>` +
     `<div class="tl-mk-stem"></div><div class="tl-mk-dot"></div>` +
     `</div>`
   );
