@@ -28,7 +28,7 @@ export function OilTooColdBanner({ plans, units, showPilot = false, title }: { p
               <p className="mt-1">
                 <span className="font-semibold">What would fix it: </span>
                 {p.fix?.readyAt ? `with the heater on from now it is ready at ${formatDayTime(Date.parse(p.fix.readyAt), zone)}; ` : ''}
-                {p.fix?.powerNeededW ? `about ${Math.ceil(p.fix.powerNeededW / 50) * 50} W of heat would make it on time; ` : ''}
+                {p.fix?.powerNeededW && (!p.heater || p.fix.powerNeededW > p.heater.powerW) ? `about ${Math.ceil(p.fix.powerNeededW / 50) * 50} W of heat would make it on time (${p.heater ? `${Math.round(p.heater.powerW)} W fitted` : 'none fitted'}); ` : ''}
                 move the departure later, move the aircraft into a heated hangar, or ask your operator for a stronger heater.
               </p>
             </li>

@@ -164,7 +164,7 @@ export function describeOilTooCold(d: OilTooColdData, unit: TempUnit, audience: 
     { label: 'Ready temperature', value: ready },
   ];
   if (d.oilAtDepartureC !== null && d.oilAtDepartureC < d.readyC) {
-    facts.push({ label: 'Short by', value: `${toDisplayDelta(d.readyC - d.oilAtDepartureC, unit).toFixed(0)} ${unit === 'F' ? '°F' : 'K'}` });
+    facts.push({ label: 'Too cold by', value: `${toDisplayDelta(d.readyC - d.oilAtDepartureC, unit).toFixed(0)} °${unit === 'F' ? 'F' : 'C'}` });
   }
   facts.push({ label: 'Heater', value: d.heater ? `${d.heater.kindLabel}, ${Math.round(d.heater.powerW)} W${d.heater.control === 'manual' ? ', switched by hand' : ''}` : 'None fitted' });
   if (d.switchOnAt) facts.push({ label: 'Planned switch-on', value: localWhen(d.switchOnAt, z) });
