@@ -23,6 +23,7 @@ import {
   type OilTooColdData,
   type SwitchOnData,
 } from './content';
+import { writeTransaction } from '@/models/transaction';
 
 const MIN = 60_000;
 const HOUR = 60 * MIN;
@@ -113,7 +114,7 @@ async function notify(c: Candidate, now: Date, report: EvaluationReport): Promis
   const revision = (latest?.revision ?? 0) + 1;
   const link = alertLink(c.kind, audience).path;
   try {
-    await sequelize.transaction(async (transaction) => {
+    await writeTransaction(async (transaction) => {
       if (latest && !latest.supersededAt) await latest.update({ supersededAt: now }, { transaction });
       const alert = await Alert.create(
         {
