@@ -94,8 +94,11 @@ test('a pilot sees aircraft read-only; an operator gets the profile form', async
   await pilot.page.goto(`${BASE}/aircraft`);
   await pilot.page.getByRole('link', { name: 'Q-SIPI' }).first().click();
   await pilot.page.getByRole('heading', { level: 1, name: 'Q-SIPI' }).waitFor();
-  assert.equal(await pilot.page.getByRole('button', { name: 'Save changes' }).count(), 0);
+  // The aircraft page opens on its upcoming departures; the profile is its own tab.
+  await pilot.page.getByRole('heading', { name: 'Upcoming departures' }).waitFor();
+  await pilot.page.getByRole('link', { name: 'Profile' }).click();
   await pilot.page.getByRole('heading', { name: 'Heaters' }).waitFor();
+  assert.equal(await pilot.page.getByRole('button', { name: 'Save changes' }).count(), 0);
   const denied = await pilot.page.goto(`${BASE}/aircraft/new`);
   assert.equal(denied.status(), 403);
   await pilot.context.close();
@@ -103,6 +106,9 @@ test('a pilot sees aircraft read-only; an operator gets the profile form', async
   const op = await signedInContext(browser, 'operator');
   await op.page.goto(`${BASE}/aircraft`);
   await op.page.getByRole('link', { name: 'Q-SIPI' }).first().click();
+  // Its departures first, each with its plan.
+  await op.page.getByRole('heading', { name: 'Upcoming departures' }).waitFor();
+  await op.page.getByRole('link', { name: 'Profile' }).click();
   await op.page.getByLabel('Registration').waitFor();
   assert.equal(await op.page.getByLabel('Registration').inputValue(), 'Q-SIPI');
   await op.page.getByRole('button', { name: 'Save changes' }).click();
