@@ -135,3 +135,22 @@ for (const width of [1280, 1440, 1920]) {
     await context.close();
   });
 }
+
+test('a pilot changes the time of a departure they booked, and the list shows the new time', async () => {
+  const { context, page } = await signedInContext(browser, 'pilot');
+  const dep = new DeparturesPage(page);
+  await dep.open();
+  const date = localDay(12);
+  await dep.book({ registration: 'Q-LUMI', date, time: '07:15' });
+  await dep.status().getByText('Booked Q-LUMI').waitFor();
+  const row = dep.list().locator('tr').filter({ hasText: 'Q-LUMI' }).filter({ hasText: '07:15' }).first();
+  await row.getByRole('link', { name: /^Change/ }).click();
+  await page.getByRole('heading', { name: 'Change Q-LUMI' }).waitFor();
+  await page.getByLabel('Time', { exact: true }).fill('09:40');
+  await page.getByRole('button', { name: 'Save changes' }).click();
+  await page.getByRole('status').getByText(/Saved: Q-LUMI departs .* 09:40/).waitFor();
+  await page.getByRole('link', { name: 'Back to departures' }).click();
+  await dep.list().locator('tr').filter({ hasText: 'Q-LUMI' }).filter({ hasText: '09:40' }).first().waitFor();
+  assert.equal(await dep.list().locator('tr').filter({ hasText: 'Q-LUMI' }).filter({ hasText: '07:15' }).count(), 0);
+  await context.close();
+});
