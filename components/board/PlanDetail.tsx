@@ -57,7 +57,11 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
             {p.baselines.map((b) => (
               <li key={RULE(b)} className="flex justify-between gap-2 tabular-nums">
                 <span>{RULE(b)}{b.meetsReady ? '' : ' (short)'}</span>
-                <span className="text-slate-600 dark:text-slate-400">{b.energyKWh.toFixed(1)} kWh · saves {b.savedKWh.toFixed(1)}</span>
+                <span className="text-slate-600 dark:text-slate-400">
+                  {b.energyKWh.toFixed(1)} kWh
+                  {/* A saving only where the rule also makes the engine ready; a short rule is no alternative. */}
+                  {b.meetsReady ? (b.savedKWh >= 0.05 ? ` · the plan uses ${b.savedKWh.toFixed(1)} kWh less` : ' · about the same as the plan') : ` · oil ${formatTemp(b.oilAtDepartureC, units, 0)}, not ready`}
+                </span>
               </li>
             ))}
           </ul>
@@ -66,7 +70,8 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
       {p.status === 'short' && p.fix ? (
         <Notice tone="danger" title="This departure will not be ready">
           {p.fix.readyAt ? <>With the heater on from now, the oil reaches {formatTemp(p.readyC, units, 0)} at {formatDayTime(Date.parse(p.fix.readyAt), zone)}. </> : null}
-          {p.fix.powerNeededW ? <>To be ready on time it would need about {Math.ceil(p.fix.powerNeededW / 50) * 50} W of heat. </> : null}
+          {/* Only when more power would help: a shortfall of time is not cured by a heater already big enough. */}
+          {p.fix.powerNeededW && (!p.heater || p.fix.powerNeededW > p.heater.powerW) ? <>To be ready on time it would need about {Math.ceil(p.fix.powerNeededW / 50) * 50} W of heat{p.heater ? ` (${Math.round(p.heater.powerW)} W fitted)` : ''}. </> : null}
           Move the departure, move the aircraft into a warmer shelter, or fit a stronger heater.
         </Notice>
       ) : null}
@@ -85,7 +90,7 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
         ) : null}
         <span className="text-xs text-slate-500">Computed {formatDayTime(Date.parse(p.computedAt), zone)}{p.forecast?.stale ? ' · forecast out of date' : ''}</span>
       </div>
-      <HeatCautions />
+      <HeatCautions always />
     </div>
   );
 }

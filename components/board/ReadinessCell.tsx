@@ -1,11 +1,11 @@
 import { formatTemp } from '@/components/airfields/format';
-import { formatDayTime } from '@/lib/time';
+import { heaterLine } from '@/lib/plans/state';
 import type { PlanView } from '@/lib/data/plans';
 import { ReadinessBadge } from './ReadinessBadge';
 import { PlanDisclosure } from './PlanDisclosure';
 
 /** A departure's readiness in a list: status, predicted oil at departure, chance, and the switch-on time. */
-export function ReadinessCell({ plan, units, canConfirm = false }: { plan: PlanView; units: 'C' | 'F'; canConfirm?: boolean }) {
+export function ReadinessCell({ plan, units, canConfirm = false, nowMs }: { plan: PlanView; units: 'C' | 'F'; canConfirm?: boolean; nowMs: number }) {
   const zone = plan.airfield?.timeZone ?? 'UTC';
   return (
     <div className="space-y-1 text-sm">
@@ -17,7 +17,7 @@ export function ReadinessCell({ plan, units, canConfirm = false }: { plan: PlanV
         Oil at departure <strong className={plan.oilAtDepartureC !== null && plan.oilAtDepartureC < plan.readyC ? 'text-red-700 dark:text-red-300' : ''}>{formatTemp(plan.oilAtDepartureC, units, 0)}</strong>
         <span className="text-slate-500"> · ready {formatTemp(plan.readyC, units, 0)}</span>
       </div>
-      {plan.switchOnAt ? <div className="text-xs text-ember-700 dark:text-ember-300">Heater on {formatDayTime(Date.parse(plan.switchOnAt), zone)}</div> : null}
+      {plan.switchOnAt ? <div className="text-xs text-ember-700 dark:text-ember-300">{heaterLine(plan, zone, nowMs)}</div> : null}
       <PlanDisclosure departureId={plan.departureId} units={units} canConfirm={canConfirm} />
     </div>
   );

@@ -92,6 +92,8 @@ export interface PilotChoice {
   id: number;
   name: string;
   email: string;
+  /** The aircraft this pilot is listed on (the booking form warns when another is chosen). */
+  aircraftIds: number[];
 }
 
 type AircraftWithIncludes = Aircraft & {
@@ -214,7 +216,8 @@ export async function listShelterChoices({ orgId }: { orgId: number }): Promise<
 export async function listPilotChoices({ orgId }: { orgId: number }): Promise<PilotChoice[]> {
   const { User } = db();
   const users = await User.findAll({ where: { organizationId: orgId, role: 'pilot', active: true }, order: [['name', 'ASC']] });
-  return users.map((u) => ({ id: u.id, name: u.name, email: u.email }));
+  const links = users.length ? await AircraftPilot.findAll({ where: { userId: users.map((u) => u.id) } }) : [];
+  return users.map((u) => ({ id: u.id, name: u.name, email: u.email, aircraftIds: links.filter((l) => l.userId === u.id).map((l) => l.aircraftId) }));
 }
 
 // ---------------------------------------------------------------------------------------------

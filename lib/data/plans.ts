@@ -16,11 +16,8 @@ import type { Forecast } from '@/models/Forecast';
 // Heat plans: computed from the departure, the aircraft and its heaters, the shelter, the airfield's
 // cached forecast and tariff; stored with a fingerprint of those inputs, recomputed when it changes.
 
-export type Readiness = 'ready' | 'warming' | 'short' | 'unplanned';
-const RANK: Record<Readiness, number> = { ready: 0, warming: 1, unplanned: 2, short: 3 };
-export function worstReadiness(list: Readiness[]): Readiness | null {
-  return list.length ? list.reduce((w, r) => (RANK[r] > RANK[w] ? r : w)) : null;
-}
+import { worstReadiness, type Readiness } from '@/lib/plans/state';
+export type { Readiness };
 
 /** Plans are recomputed at most this often for the same inputs (the clock moves the earliest switch-on). */
 const NOW_STEP_MS = 10 * 60_000;
@@ -211,8 +208,12 @@ async function plansFor(orgId: number, departures: DepartureRecord[], now: Date,
       out.push({ ...viewOf(d, { status: 'unplanned', result: null, freeOilC: null }, null, ctx, currency), summary: 'No forecast yet for this airfield', problem: 'no-forecast' });
       continue;
     }
-    const key = keyOf(rec, now.getTime());
     let row = byDep.get(d.id);
+    // Once a stored plan's switch-on time has come, the heater is on by that plan: the plan keeps its own
+    // clock, so it (and its switch-on time on every page, alert and e-mail) stays put until another input
+    // changes. Recomputing from "now" would restart the plan as if the oil had not been heated.
+    const underWay = !!row?.switchOnAt && row.switchOnAt.getTime() <= now.getTime();
+    const key = keyOf(rec, underWay ? row!.computedAt.getTime() : now.getTime());
     let computed: Computed;
     if (row && row.inputsKey === key) {
       computed = row.result as Computed;
