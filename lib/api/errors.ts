@@ -46,6 +46,12 @@ export class TooLarge extends AppError {
   }
 }
 
+export class UnsupportedMediaType extends AppError {
+  constructor(message = 'Send the body as JSON with Content-Type: application/json.') {
+    super(415, 'unsupported_media_type', message);
+  }
+}
+
 /** Field errors from a zod error: the path joined with dots ("engine.nodes.0.lossWPerK"). */
 export function zodFields(err: ZodError): FieldError[] {
   return err.issues.map((i) => ({ field: i.path.map(String).join('.') || '(body)', message: i.message }));

@@ -50,22 +50,35 @@ export const authOptions: NextAuthOptions = {
           return null;
         }
         await clearFailedSignIns(email);
-        return { id: String(user.id), email: user.email, name: user.name, role: user.role, orgId: user.organizationId };
+        return { id: String(user.id), email: user.email, name: user.name, role: user.role, orgId: user.organizationId, sv: user.sessionVersion };
       },
     }),
   ],
+  events: {
+    // Signing out ends this session everywhere it was copied: the cookie is only cleared in this browser,
+    // so the version it carries stops being the user's.
+    async signOut({ token }) {
+      if (!token?.uid) return;
+      try {
+        await db().User.increment('sessionVersion', { where: { id: token.uid, sessionVersion: token.sv ?? -1 } });
+      } catch (err) {
+        console.error('[thawline] sign-out could not end the session', err instanceof Error ? err.message : err);
+      }
+    },
+  },
   callbacks: {
     async jwt({ token, user }) {
       if (user) {
-        const u = user as unknown as { id: string; role: Role; orgId: number };
+        const u = user as unknown as { id: string; role: Role; orgId: number; sv: number };
         token.uid = Number(u.id);
         token.role = u.role;
         token.orgId = u.orgId;
+        token.sv = u.sv;
       }
       return token;
     },
     async session({ session, token }) {
-      session.user = { ...session.user, id: token.uid, role: token.role, orgId: token.orgId };
+      session.user = { ...session.user, id: token.uid, role: token.role, orgId: token.orgId, sessionVersion: token.sv };
       return session;
     },
   },
