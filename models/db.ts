@@ -5,6 +5,9 @@ import { env } from '@/lib/env';
 
 // One Sequelize instance per process, cached on globalThis so hot reload in development does not
 // open new connections. SQLite runs in WAL mode with a busy timeout; another dialect comes from DATABASE_URL.
+/** How long an SQLite connection waits for another's write lock before it reports SQLITE_BUSY. */
+export const SQLITE_BUSY_TIMEOUT_MS = 10_000;
+
 const g = globalThis as unknown as { __thawlineSequelize?: Sequelize };
 
 function create(): Sequelize {
@@ -18,13 +21,24 @@ function create(): Sequelize {
   // eslint-disable-next-line @typescript-eslint/no-require-imports
   const sqlite3 = require('sqlite3');
   const s = new Sequelize({ dialect: 'sqlite', storage, dialectModule: sqlite3, logging });
-  s.addHook('afterConnect', async (connection: unknown) => {
-    const db = connection as { run: (sql: string, cb: (err: Error | null) => void) => void };
-    const run = (sql: string) => new Promise<void>((res, rej) => db.run(sql, (err) => (err ? rej(err) : res())));
+  // Sequelize's SQLite connection manager opens a connection of its own for every transaction and
+  // does not run the `afterConnect` hook, so the settings go on each connection as it is handed out:
+  // a busy timeout (a writer waits for the lock instead of failing at once), WAL, foreign keys.
+  type SqliteConnection = { run: (sql: string, cb: (err: Error | null) => void) => void; configure?: (option: 'busyTimeout', ms: number) => void };
+  const cm = s.connectionManager as unknown as { getConnection: (o?: unknown) => Promise<SqliteConnection> };
+  const getConnection = cm.getConnection.bind(cm);
+  const ready = new WeakSet<object>();
+  cm.getConnection = async (o?: unknown) => {
+    const c = await getConnection(o);
+    if (ready.has(c)) return c;
+    ready.add(c);
+    const run = (sql: string) => new Promise<void>((res, rej) => c.run(sql, (err) => (err ? rej(err) : res())));
+    c.configure?.('busyTimeout', SQLITE_BUSY_TIMEOUT_MS);
+    await run(`PRAGMA busy_timeout=${SQLITE_BUSY_TIMEOUT_MS}`);
     await run('PRAGMA journal_mode=WAL');
-    await run('PRAGMA busy_timeout=5000');
     await run('PRAGMA foreign_keys=ON');
-  });
+    return c;
+  };
   return s;
 }
 

@@ -8,6 +8,12 @@ import { formatDayTime, formatTime } from '@/lib/time';
 import type { PlanView } from '@/lib/data/plans';
 import { ConfirmButton, money, pct } from './MorningBoard';
 import { HeatCautions } from './Cautions';
+import { sameLocalDay } from '@/lib/plans/state';
+
+const hoursText = (ms: number) => {
+  const m = Math.round(ms / 60_000);
+  return m < 60 ? `${m} min` : `${Math.floor(m / 60)} h${m % 60 ? ` ${m % 60} min` : ''}`;
+};
 
 interface Detail {
   plan: PlanView;
@@ -35,7 +41,9 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
             <ul className="mt-1 space-y-0.5 tabular-nums">
               {p.heaterOn.map((b) => (
                 <li key={b.from}>
-                  {formatTime(Date.parse(b.from), zone)}–{formatTime(Date.parse(b.to), zone)}
+                  {/* Each end with its day, so a block over midnight reads as the hours it is. */}
+                  {formatDayTime(Date.parse(b.from), zone)} – {sameLocalDay(Date.parse(b.from), Date.parse(b.to), zone) ? formatTime(Date.parse(b.to), zone) : formatDayTime(Date.parse(b.to), zone)}
+                  <span className="text-slate-500"> ({hoursText(Date.parse(b.to) - Date.parse(b.from))})</span>
                 </li>
               ))}
             </ul>

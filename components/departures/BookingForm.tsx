@@ -2,7 +2,7 @@
 import { useMemo, useState } from 'react';
 import { useSWRConfig } from 'swr';
 import { Button, Card } from '@/components/ui/primitives';
-import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotice';
+import { ResultNotice, retryable, type FormResult } from '@/components/aircraft/ResultNotice';
 import { FieldShell, SelectField, TextField, inputClass } from '@/components/ui/Field';
 import { fmtTemp } from '@/components/aircraft/format';
 import { sendJson } from '@/lib/client/fetcher';
@@ -90,8 +90,8 @@ export function BookingForm({
     return [...m.values()].sort((x, y) => x.name.localeCompare(y.name));
   }, [aircraft]);
 
-  async function onSubmit(e: React.FormEvent) {
-    e.preventDefault();
+  async function onSubmit(e?: React.FormEvent) {
+    e?.preventDefault();
     setPending(true);
     setResult(null);
     const body = {
@@ -112,7 +112,7 @@ export function BookingForm({
       await mutate((key) => typeof key === 'string' && key.startsWith(DEPARTURES_KEY));
     } else {
       setFields(r.fields);
-      setResult({ tone: 'caution', text: r.message });
+      setResult({ tone: 'caution', text: r.message, retry: retryable(r.status) });
     }
   }
 
@@ -226,7 +226,7 @@ export function BookingForm({
         <Button type="submit" disabled={pending || aircraft.length === 0} className="w-full">
           {pending ? 'Booking…' : 'Book departure'}
         </Button>
-        <ResultNotice result={result} okTitle="Booked" failTitle="Not booked" errors={fieldErrors.map(([f, m]) => ({ key: f, label: LABEL[f] ?? f, message: m }))} />
+        <ResultNotice onRetry={() => void onSubmit()} result={result} okTitle="Booked" failTitle="Not booked" errors={fieldErrors.map(([f, m]) => ({ key: f, label: LABEL[f] ?? f, message: m }))} />
       </form>
     </Card>
   );

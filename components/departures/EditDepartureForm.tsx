@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useSWRConfig } from 'swr';
 import { DEPARTURES_KEY } from './DepartureList';
 import { Button, ButtonLink } from '@/components/ui/primitives';
-import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotice';
+import { ResultNotice, retryable, type FormResult } from '@/components/aircraft/ResultNotice';
 import { FieldShell, SelectField, TextField, inputClass } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { formatDayTime, formatTime, localDateKey, localDateOf, zoneLabel } from '@/lib/time';
@@ -40,8 +40,8 @@ export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: Departure
   const [pending, setPending] = useState(false);
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
 
-  async function submit(e: React.FormEvent) {
-    e.preventDefault();
+  async function submit(e?: React.FormEvent) {
+    e?.preventDefault();
     setPending(true);
     setResult(null);
     const ready = toC(form.readyC, tempUnit);
@@ -63,7 +63,7 @@ export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: Departure
       router.refresh();
     } else {
       setFields(r.fields);
-      setResult({ tone: 'caution', text: r.message });
+      setResult({ tone: 'caution', text: r.message, retry: retryable(r.status) });
     }
   }
 
@@ -106,7 +106,7 @@ export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: Departure
         </ButtonLink>
       </div>
       {/* The result sits right under the button that caused it. */}
-      <ResultNotice result={result} okTitle="Saved" failTitle="Not saved" errors={errors} />
+      <ResultNotice onRetry={() => void submit()} result={result} okTitle="Saved" failTitle="Not saved" errors={errors} />
     </form>
   );
 }

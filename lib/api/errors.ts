@@ -1,4 +1,5 @@
 import { ZodError } from 'zod';
+import { describeError } from '@/lib/log';
 
 // Typed errors thrown anywhere on the server; one mapper turns them into HTTP answers.
 export class AppError extends Error {
@@ -75,6 +76,7 @@ export function toErrorResponse(err: unknown): { status: number; body: ErrorBody
   if (name === 'SequelizeUniqueConstraintError') {
     return { status: 409, body: { error: 'conflict', message: 'A record with these values already exists.' } };
   }
-  console.error('[thawline] unhandled error', err);
+  // Name and driver code only: a database error carries the statement and its values.
+  console.error(`[thawline] unhandled error: ${describeError(err)}`);
   return { status: 500, body: { error: 'internal', message: 'Something went wrong on our side. Try again in a moment.' } };
 }

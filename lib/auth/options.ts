@@ -8,6 +8,7 @@ import type { User } from '@/models/User';
 import { signInSchema } from '@/lib/validation/auth';
 import { clearFailedSignIns, recordFailedSignIn, signInBlockedFor } from './limiter';
 import type { Role } from './permissions';
+import { describeError } from '@/lib/log';
 
 // Without NEXTAUTH_URL (the embedded set-up on any port) next-auth takes its origin from the request's host.
 if (!process.env.NEXTAUTH_URL) process.env.AUTH_TRUST_HOST ??= 'true';
@@ -41,7 +42,7 @@ export const authOptions: NextAuthOptions = {
           user = await db().User.findOne({ where: { email } });
         } catch (err) {
           // next-auth would put the error's message in the redirect URL: log it here, answer as a failed sign-in.
-          console.error('[thawline] sign-in lookup failed', err);
+          console.error(`[thawline] sign-in lookup failed: ${describeError(err)}`);
           return null;
         }
         const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);

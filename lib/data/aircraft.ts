@@ -20,6 +20,7 @@ import {
   type HeaterKind,
   type ThermalInput,
 } from '@/lib/validation/aircraft';
+import { writeTransaction } from '@/models/transaction';
 
 // Aircraft profiles with their heaters and the pilots who may book them, always scoped to one
 // organization. Another organization's aircraft is "not found": it does not exist for the caller.
@@ -307,8 +308,8 @@ async function replacePilots({ aircraftId, pilotIds }: { aircraftId: number; pil
 }
 
 export async function createAircraft({ orgId, input, now = new Date() }: { orgId: number; input: AircraftCreate; now?: Date }): Promise<AircraftRecord> {
-  const { sequelize, Aircraft } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { Aircraft } = db();
+  return writeTransaction(async (transaction) => {
     await checkReferences({ orgId, shelterId: input.shelterId, pilotIds: input.pilotIds, lastShutdownAt: input.lastShutdownAt, now }, transaction);
     await checkRegistrationFree({ orgId, registration: input.registration }, transaction);
     const preset = aircraftDefaultsFor(input.engineClass);
@@ -335,8 +336,8 @@ export async function createAircraft({ orgId, input, now = new Date() }: { orgId
 }
 
 export async function updateAircraft({ orgId, aircraftId, patch, now = new Date() }: { orgId: number; aircraftId: number; patch: AircraftUpdate; now?: Date }): Promise<AircraftRecord> {
-  const { sequelize, Aircraft } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { Aircraft } = db();
+  return writeTransaction(async (transaction) => {
     const a = await Aircraft.findOne({ where: { id: aircraftId, organizationId: orgId }, transaction });
     if (!a) throw new NotFound('Aircraft');
     await checkReferences({ orgId, shelterId: patch.shelterId, pilotIds: patch.pilotIds, lastShutdownAt: patch.lastShutdownAt, now }, transaction);
@@ -367,8 +368,8 @@ export async function updateAircraft({ orgId, aircraftId, patch, now = new Date(
 
 /** Archives the aircraft (its history stays) and cancels its departures still to come. */
 export async function archiveAircraft({ orgId, aircraftId, now = new Date() }: { orgId: number; aircraftId: number; now?: Date }) {
-  const { sequelize, Aircraft } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { Aircraft } = db();
+  return writeTransaction(async (transaction) => {
     const a = await Aircraft.findOne({ where: { id: aircraftId, organizationId: orgId }, transaction });
     if (!a) throw new NotFound('Aircraft');
     if (!a.archivedAt) {

@@ -12,6 +12,8 @@ import { getDeparture, listDepartures, type Actor, type DepartureRecord } from '
 import { tariffPeriodsBetween, tariffsFor, type TariffRecord } from './tariffs';
 import type { Airfield } from '@/models/Airfield';
 import type { Forecast } from '@/models/Forecast';
+import type { HeatPlan } from '@/models/HeatPlan';
+import type { InferCreationAttributes } from 'sequelize';
 
 // Heat plans: computed from the departure, the aircraft and its heaters, the shelter, the airfield's
 // cached forecast and tariff; stored with a fingerprint of those inputs, recomputed when it changes.
@@ -187,6 +189,22 @@ async function contextFor(orgId: number, departures: DepartureRecord[], now: Dat
   return { forecasts, tariffs, now };
 }
 
+type StoredPlan = Omit<InferCreationAttributes<HeatPlan>, 'id' | 'createdAt' | 'updatedAt' | 'confirmedById' | 'confirmedAt' | 'confirmedKey'>;
+
+/**
+ * Stores a computed plan with one upsert on the departure's unique key, so simultaneous readers and the
+ * plan job leave one row per departure and none of them fails; a confirmation lapses unless it was given
+ * for these inputs (`keepConfirmation`).
+ */
+async function storePlan(values: StoredPlan, keepConfirmation: boolean): Promise<HeatPlan> {
+  const { HeatPlan } = db();
+  const v = keepConfirmation ? values : { ...values, confirmedAt: null, confirmedById: null, confirmedKey: null };
+  await HeatPlan.upsert(v, { conflictFields: ['departureId'], fields: Object.keys(v) as (keyof StoredPlan)[] });
+  const row = await HeatPlan.findOne({ where: { organizationId: values.organizationId, departureId: values.departureId } });
+  if (!row) throw new Error('heat plan: the stored plan was not found');
+  return row;
+}
+
 /**
  * Plans for the given departures: each is read from its stored Heat plan when the inputs are unchanged,
  * otherwise recomputed and stored (a confirmation lapses when the inputs change).
@@ -239,12 +257,7 @@ async function plansFor(orgId: number, departures: DepartureRecord[], now: Date,
         probabilityReady: computed.result?.probabilityReady ?? null,
         result: computed,
       };
-      if (row) {
-        const keep = row.confirmedKey === key;
-        await row.update({ ...values, ...(keep ? {} : { confirmedAt: null, confirmedById: null, confirmedKey: null }) });
-      } else {
-        row = await HeatPlan.create(values);
-      }
+      row = await storePlan(values, row?.confirmedKey === key);
     }
     const confirmed = row.confirmedKey === row.inputsKey && row.confirmedById ? confirmers.get(row.confirmedById) ?? null : null;
     out.push(viewOf(d, computed, { computedAt: row.computedAt, confirmedBy: confirmed, confirmedAt: confirmed ? row.confirmedAt : null }, ctx, currency));

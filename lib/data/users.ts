@@ -5,6 +5,7 @@ import { db } from '@/models';
 import { Conflict, Forbidden, Invalid, NotFound } from '@/lib/api/errors';
 import type { Role } from '@/lib/auth/permissions';
 import { writeInvitation } from './tokens';
+import { writeTransaction } from '@/models/transaction';
 
 export interface UserRow {
   id: number;
@@ -43,12 +44,15 @@ export async function listUsers({ orgId }: { orgId: number }): Promise<UserRow[]
 
 export async function createUser({ orgId, name, email, role, temporaryPassword }: { orgId: number; name: string; email: string; role: Role; temporaryPassword: string }) {
   const { User } = db();
-  const existing = await User.findOne({ where: { email } });
-  // The same answer whether the address belongs to this organization or another: it tells nothing more.
-  if (existing) throw new Conflict('That e-mail address is already in use.');
   const passwordHash = await bcrypt.hash(temporaryPassword, 10);
-  const u = await User.create({ organizationId: orgId, name, email, role, passwordHash, mustChangePassword: true });
-  return row(u);
+  // The check runs under the write lock, so of simultaneous requests for one address one wins, the rest are 409.
+  return writeTransaction(async (transaction) => {
+    const existing = await User.findOne({ where: { email }, transaction });
+    // The same answer whether the address belongs to this organization or another: it tells nothing more.
+    if (existing) throw new Conflict('That e-mail address is already in use.');
+    const u = await User.create({ organizationId: orgId, name, email, role, passwordHash, mustChangePassword: true }, { transaction });
+    return row(u);
+  });
 }
 
 /**
@@ -56,11 +60,12 @@ export async function createUser({ orgId, name, email, role, temporaryPassword }
  * written in one transaction. Nobody knows the account's password until the invitee chooses one.
  */
 export async function inviteUser({ orgId, inviterId, name, email, role, now = new Date() }: { orgId: number; inviterId: number; name: string; email: string; role: Role; now?: Date }) {
-  const { User, sequelize } = db();
-  const existing = await User.findOne({ where: { email } });
-  if (existing) throw new Conflict('That e-mail address is already in use.');
+  const { User } = db();
+  if (await User.findOne({ where: { email }, attributes: ['id'] })) throw new Conflict('That e-mail address is already in use.');
   const passwordHash = await bcrypt.hash(crypto.randomBytes(32).toString('base64url'), 10);
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
+    // Again under the write lock: of simultaneous invitations of one address one wins, the rest are 409.
+    if (await User.findOne({ where: { email }, attributes: ['id'], transaction })) throw new Conflict('That e-mail address is already in use.');
     const u = await User.create({ organizationId: orgId, name, email, role, passwordHash, mustChangePassword: true }, { transaction });
     const invitation = await writeInvitation({ orgId, user: u, inviterId, now, transaction });
     return { ...row(u), invitation: { expiresAt: invitation.expiresAt.toISOString() } };
@@ -68,8 +73,8 @@ export async function inviteUser({ orgId, inviterId, name, email, role, now = ne
 }
 
 export async function updateUser({ orgId, actorId, userId, role, active }: { orgId: number; actorId: number; userId: number; role?: Role; active?: boolean }) {
-  const { User, sequelize } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { User } = db();
+  return writeTransaction(async (transaction) => {
     const u = await User.findOne({ where: { id: userId, organizationId: orgId }, transaction });
     if (!u) throw new NotFound('User');
     if (u.id === actorId && (active === false || (role && role !== 'manager'))) {

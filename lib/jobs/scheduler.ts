@@ -5,6 +5,7 @@ import crypto from 'node:crypto';
 import { Cron } from 'croner';
 import { acquireLease, recordRun, releaseLease } from './lease';
 import { JOBS, type JobDefinition, type JobName } from './definitions';
+import { describeError } from '@/lib/log';
 
 export type RunOutcome = { ran: true; result: unknown } | { ran: false; reason: 'lease-held' | 'busy' } | { ran: false; reason: 'error'; error: string };
 
@@ -33,8 +34,8 @@ export class Scheduler {
       await recordRun({ name, holder: this.holder, now: new Date() });
       return { ran: true, result };
     } catch (err) {
-      this.log(`job ${name} failed: ${err instanceof Error ? err.message : String(err)}`);
-      return { ran: false, reason: 'error', error: err instanceof Error ? err.message : String(err) };
+      this.log(`job ${name} failed: ${describeError(err)}`);
+      return { ran: false, reason: 'error', error: describeError(err) };
     } finally {
       this.running.delete(name);
     }

@@ -56,3 +56,14 @@ test('booking a pilot who is not listed on the aircraft shows a warning before b
   assert.equal(await page.getByText(/is not listed as a pilot of/).count(), 0);
   await context.close();
 });
+
+test("a departure's heat plan opens at the page's width from the Departures list", async () => {
+  const { context, page } = await signedInContext(browser, 'operator', { width: 1440, height: 900 });
+  await page.goto(`${BASE}/departures`);
+  await page.getByRole('link', { name: /^Soak forecast and heat plan/ }).first().click();
+  await page.getByRole('heading', { name: /soak forecast and heat plan/ }).waitFor();
+  await page.locator('svg').first().waitFor();
+  const box = await page.locator('main svg').first().boundingBox();
+  assert.ok(box && box.width > 700, `chart ${box?.width} px wide`);
+  await context.close();
+});

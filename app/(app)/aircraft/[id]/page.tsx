@@ -74,7 +74,7 @@ export default async function Page({ params, searchParams }: { params: Promise<{
                   <p className="mb-2 font-semibold text-slate-900 dark:text-white">
                     {formatDayTime(Date.parse(p.departAt), p.airfield?.timeZone ?? 'UTC')} <span className="font-normal text-slate-600 dark:text-slate-400">· {p.pilot.name}</span>
                   </p>
-                  <ReadinessCell plan={p} units={user.tempUnit} nowMs={nowMs} canConfirm={can(user.role, 'plans:manage')} />
+                  <ReadinessCell plan={p} units={user.tempUnit} nowMs={nowMs} />
                 </li>
               ))}
             </ul>
