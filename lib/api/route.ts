@@ -3,7 +3,7 @@ import { NextResponse } from 'next/server';
 import type { ZodType } from 'zod';
 import { requireUser, assertCan, type CurrentUser } from '@/lib/auth/guards';
 import type { Permission } from '@/lib/auth/permissions';
-import { Forbidden, Invalid, TooLarge, UnsupportedMediaType, toErrorResponse } from './errors';
+import { Forbidden, Invalid, TooLarge, TooManyRequests, UnsupportedMediaType, toErrorResponse } from './errors';
 
 const MAX_BODY_BYTES = 2 * 1024 * 1024;
 
@@ -88,7 +88,8 @@ export function apiRoute<B = undefined, Q = undefined>(
       return NextResponse.json(result ?? { ok: true }, { status: opts.created ? 201 : 200 });
     } catch (err) {
       const { status, body } = toErrorResponse(err);
-      return NextResponse.json(body, { status });
+      const headers = err instanceof TooManyRequests ? { 'retry-after': String(err.retryAfterSeconds) } : undefined;
+      return NextResponse.json(body, { status, headers });
     }
   };
 }

@@ -8,6 +8,7 @@ import type { User } from '@/models/User';
 import { signInSchema } from '@/lib/validation/auth';
 import { clearFailedSignIns, recordFailedSignIn, signInBlockedFor } from './limiter';
 import type { Role } from './permissions';
+import { clientAddress } from './client-address';
 import { describeError } from '@/lib/log';
 
 // Without NEXTAUTH_URL (the embedded set-up on any port) next-auth takes its origin from the request's host.
@@ -15,12 +16,6 @@ if (!process.env.NEXTAUTH_URL) process.env.AUTH_TRUST_HOST ??= 'true';
 
 // A hash to compare against when no account matches, so both paths take the same time.
 const DUMMY_HASH = '$2b$10$CwTycUXWue0Thq9StjUM0uJ8.RZV9Q1l0g9bSg6a8OpQj3oXGZr7e';
-
-function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const fwd = headers?.['x-forwarded-for'];
-  const first = typeof fwd === 'string' ? fwd.split(',')[0].trim() : '';
-  return first || (typeof headers?.['x-real-ip'] === 'string' ? (headers['x-real-ip'] as string) : 'local');
-}
 
 export const authOptions: NextAuthOptions = {
   secret: env().NEXTAUTH_SECRET,

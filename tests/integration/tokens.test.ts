@@ -109,6 +109,9 @@ describe('password reset', () => {
     expect(unknown.status).toBe(known.status);
     expect(unknown.body).toEqual(known.body);
     await call(req.POST as never, { method: 'POST', body: { email: DEMO.operator } });
+    // The work behind the answer is queued (the answer does not wait for it): wait for it here.
+    const { settleQueuedResets } = await import('@/lib/data/tokens');
+    await settleQueuedResets();
     expect(await models.OutboxMessage.count({ where: { kind: 'reset' } })).toBe(before + 1);
     const badEmail = await call(req.POST as never, { method: 'POST', body: { email: 'not an address' } });
     expect(badEmail.status).toBe(422);
