@@ -66,7 +66,8 @@ describe('invitations', () => {
     const resend = await import('@/app/api/tokens/invitations/route');
     const accept = await import('@/app/api/tokens/invite/route');
     await signInAs(DEMO.manager);
-    const created = await call(users.POST as never, { method: 'POST', body: { name: 'Oli Haze', email: 'oli.haze@frostvale.test', role: 'operator' } });
+    await call(users.POST as never, { method: 'POST', body: { name: 'Oli Haze', email: 'oli.haze@frostvale.test', role: 'operator' } });
+    const created = { body: { user: (await models.User.findOne({ where: { email: 'oli.haze@frostvale.test' } }))! } };
     await deliver();
     const first = tokenIn(lastTo('oli.haze@frostvale.test').text, 'invite');
     expect((await call(resend.POST as never, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(201);
