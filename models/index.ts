@@ -13,6 +13,8 @@ import { OilChange, initOilChange } from './OilChange';
 import { Heater, initHeater } from './Heater';
 import { AircraftPilot, initAircraftPilot } from './AircraftPilot';
 import { Tariff, initTariff } from './Tariff';
+import { Device, initDevice } from './Device';
+import { DeviceEvent, initDeviceEvent } from './DeviceEvent';
 import { Departure, initDeparture } from './Departure';
 import { HeatPlan, initHeatPlan } from './HeatPlan';
 import { CalendarFeed, initCalendarFeed } from './CalendarFeed';
@@ -27,6 +29,7 @@ import { guardWrites } from './transaction';
 
 export { Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
 export { Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail };
+export { Device, DeviceEvent };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -58,6 +61,8 @@ export function db() {
     initToken(sequelize);
     initLease(sequelize);
     initCapturedMail(sequelize);
+    initDevice(sequelize);
+    initDeviceEvent(sequelize);
 
     Organization.hasMany(User, { foreignKey: 'organizationId' });
     User.belongsTo(Organization, { foreignKey: 'organizationId' });
@@ -87,7 +92,7 @@ export function db() {
     Token.belongsTo(User, { foreignKey: 'userId', as: 'user' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, Device, DeviceEvent };
 }
 
 export function migrator() {
