@@ -98,3 +98,21 @@ export async function recordDeviceEvent(e: { orgId: number; deviceId: number | n
   const { DeviceEvent } = db();
   await DeviceEvent.create({ organizationId: e.orgId, deviceId: e.deviceId, aircraftId: e.aircraftId, kind: e.kind, commandId: e.commandId ?? null, detail: e.detail, userId: e.userId ?? null });
 }
+
+export async function touchDevice(deviceId: number): Promise<void> {
+  const { Device } = db();
+  await Device.update({ lastSeenAt: new Date() }, { where: { id: deviceId } });
+}
+
+/** Records a relay's acknowledgement of one of its own commands (an unknown command id is ignored). */
+export async function recordDeviceAck({ orgId, deviceId, commandId }: { orgId: number; deviceId: number; commandId: string }): Promise<boolean> {
+  const { DeviceEvent, Device } = db();
+  return writeTransaction(async (transaction) => {
+    const sent = await DeviceEvent.findOne({ where: { organizationId: orgId, deviceId, kind: 'command', commandId }, transaction });
+    if (!sent) return false;
+    const seen = await DeviceEvent.findOne({ where: { organizationId: orgId, deviceId, kind: 'ack', commandId }, transaction });
+    if (!seen) await DeviceEvent.create({ organizationId: orgId, deviceId, aircraftId: sent.aircraftId, kind: 'ack', commandId, detail: {}, userId: null }, { transaction });
+    await Device.update({ lastSeenAt: new Date() }, { where: { id: deviceId }, transaction });
+    return true;
+  });
+}

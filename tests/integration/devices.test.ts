@@ -108,6 +108,11 @@ describe('devices', () => {
     s.end(true);
   });
 
+  it('a taken port fails only the broker start (EADDRINUSE, reported as port-in-use by lib/jobs)', async () => {
+    const { startEmbeddedBroker } = await import('@/lib/devices/broker');
+    await expect(startEmbeddedBroker(broker.port, { authenticate: async () => null })).rejects.toMatchObject({ code: 'EADDRINUSE' });
+  });
+
   it('removing a device stops its credentials', async () => {
     await signInAs(DEMO.operator);
     expect((await call(one.DELETE as never, { method: 'DELETE', params: { id: String(creds.id) } })).status).toBe(200);
