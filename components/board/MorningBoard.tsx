@@ -113,9 +113,9 @@ function BoardRow({ p, zone, units, nowMs, expanded, onToggle, canConfirm, onCon
   return (
     <>
       <tr className={`align-top ${short ? 'bg-red-50/60 dark:bg-red-950/30' : ''}`}>
-        <td className="px-4 py-3 md:w-28">
+        <td className="px-4 py-3 md:w-32">
           <button type="button" onClick={onToggle} aria-expanded={expanded} aria-controls={`plan-${p.departureId}`} className="text-left">
-            <span className={`block text-xl font-semibold tabular-nums ${urgent ? 'text-ember-700 dark:text-ember-300' : 'text-slate-900 dark:text-white'}`}>
+            <span className={`block whitespace-nowrap text-xl font-semibold tabular-nums ${urgent ? 'text-ember-700 dark:text-ember-300' : 'text-slate-900 dark:text-white'}`}>
               {state === 'switch-on-now' ? 'Now' : on !== null ? whenLabel(on, zone, nowMs) : '—'}
             </span>
             <span className="block text-xs text-slate-500">{on !== null ? (p.heater ? `${p.heater.kindLabel}, ${CONTROL[p.heater.control] ?? p.heater.control}` : '') : p.heater ? 'no heat needed' : 'no heater'}</span>

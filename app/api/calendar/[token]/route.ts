@@ -1,6 +1,7 @@
 import { feedCalendar, publicBaseUrl } from '@/lib/data/calendar';
 import { assertTokenAttemptsLeft, recordTokenMiss } from '@/lib/auth/limiter';
 import { TooManyRequests } from '@/lib/api/errors';
+import { describeError } from '@/lib/log';
 
 export const dynamic = 'force-dynamic';
 
@@ -22,7 +23,7 @@ export async function GET(req: Request, ctx: { params: Promise<{ token: string }
     if (err instanceof TooManyRequests) {
       return new Response('Too many requests', { status: 429, headers: { 'content-type': 'text/plain', 'retry-after': String(err.retryAfterSeconds) } });
     }
-    console.error('[thawline] calendar feed failed', err);
+    console.error(`[thawline] calendar feed failed: ${describeError(err)}`);
     return new Response('Unavailable', { status: 503, headers: { 'content-type': 'text/plain' } });
   }
 }
