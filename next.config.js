@@ -15,7 +15,7 @@ const nextConfig = {
   // A second build directory lets a developer build and run a copy beside another build (default .next).
   distDir: process.env.NEXT_DIST_DIR || '.next',
   // Native and ORM packages stay outside the bundle and load from node_modules at run time.
-  serverExternalPackages: ['sequelize', 'sqlite3', 'smtp-server', 'nodemailer', 'bcryptjs'],
+  serverExternalPackages: ['sequelize', 'sqlite3', 'pg', 'smtp-server', 'nodemailer', 'bcryptjs'],
   poweredByHeader: false,
   async headers() {
     return [{ source: '/:path*', headers: securityHeaders }];

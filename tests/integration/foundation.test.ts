@@ -20,7 +20,7 @@ describe('health and session', () => {
   it('health answers 200 when the database answers', async () => {
     const r = await call(health.GET as never);
     expect(r.status).toBe(200);
-    expect(r.body).toEqual({ status: 'ok' });
+    expect(r.body.status).toBe('ok');
   });
 
   it('a request with no session answers 401', async () => {

@@ -4,12 +4,18 @@ import fs from 'node:fs';
 import { setClaims } from './session-stub';
 
 /**
- * A fresh SQLite file for this test file, migrated and seeded with the demo scenario.
- * Call in beforeAll; models are imported after the environment points at the new file.
+ * A fresh database for this test file, migrated and seeded with the demo scenario: a new SQLite file,
+ * or with TEST_DATABASE_URL (npm run test:pg) a new PostgreSQL database on that server.
+ * Call in beforeAll; models are imported after the environment points at the new database.
  */
 export async function freshDatabase() {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'thawline-test-'));
-  process.env.DATABASE_FILE = path.join(dir, 'test.sqlite');
+  if (process.env.TEST_DATABASE_URL) {
+    process.env.DATABASE_URL = await createPgDatabase(process.env.TEST_DATABASE_URL);
+  } else {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'thawline-test-'));
+    process.env.DATABASE_FILE = path.join(dir, 'test.sqlite');
+    delete process.env.DATABASE_URL;
+  }
   process.env.THAWLINE_JOBS = 'off';
   const { resetEnvCache } = await import('@/lib/env');
   resetEnvCache();
@@ -19,6 +25,22 @@ export async function freshDatabase() {
   const { seedDemo } = await import('@/lib/seed/demo');
   await seedDemo();
   return models.db();
+}
+
+/** Creates an empty database named for this run and file on the server of `serverUrl`; returns its URL. */
+export async function createPgDatabase(serverUrl: string): Promise<string> {
+  const { Client } = await import('pg');
+  const name = `${process.env.THAWLINE_TEST_DB_PREFIX ?? 'thawline_t'}_${process.pid}_${Math.random().toString(36).slice(2, 8)}`;
+  const c = new Client({ connectionString: serverUrl });
+  await c.connect();
+  try {
+    await c.query(`CREATE DATABASE "${name}"`);
+  } finally {
+    await c.end();
+  }
+  const u = new URL(serverUrl);
+  u.pathname = `/${name}`;
+  return u.toString();
 }
 
 export async function signInAs(email: string) {
