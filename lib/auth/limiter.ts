@@ -95,7 +95,7 @@ export async function clearFailedSignIns(account: string) {
 }
 
 /** Refuses (429) a caller whose address has missed too many token links lately. */
-export async function assertTokenAttemptsLeft(req: Request) {
+export async function assertTokenAttemptsLeft(req: { headers: Pick<Headers, 'get'> }) {
   const address = clientAddress(req.headers);
   if (!address) return;
   const ms = await blockedMs(limiters().tokenMisses, address, TOKEN_MISSES_PER_ADDRESS);
@@ -103,7 +103,7 @@ export async function assertTokenAttemptsLeft(req: Request) {
 }
 
 /** Counts a token link that matched nothing usable (unknown, used, expired). */
-export async function recordTokenMiss(req: Request) {
+export async function recordTokenMiss(req: { headers: Pick<Headers, 'get'> }) {
   const address = clientAddress(req.headers);
   if (address) await limiters().tokenMisses.penalty(address, 1);
 }
@@ -115,6 +115,20 @@ export async function consumeResetRequest(req: Request) {
   const l = limiters().resetRequests;
   const r = await l.penalty(address, 1);
   if (r.consumedPoints > RESET_REQUESTS_PER_ADDRESS) throw new TooManyRequests(Math.ceil(r.msBeforeNext / 1000));
+}
+
+/**
+ * For the invitation and reset pages, which look a token up to show its form: null when the address
+ * may look, else the seconds to wait. A token that matches nothing is counted by the caller.
+ */
+export async function tokenPageWait(h: Pick<Headers, 'get'>): Promise<number> {
+  try {
+    await assertTokenAttemptsLeft({ headers: h });
+    return 0;
+  } catch (err) {
+    if (err instanceof TooManyRequests) return err.retryAfterSeconds;
+    throw err;
+  }
 }
 
 /**
