@@ -4,7 +4,8 @@ import { Sequelize } from 'sequelize';
 import { env } from '@/lib/env';
 
 // One Sequelize instance per process, cached on globalThis so hot reload in development does not
-// open new connections. SQLite runs in WAL mode with a busy timeout; another dialect comes from DATABASE_URL.
+// open new connections. SQLite runs in WAL mode with a busy timeout; DATABASE_URL selects PostgreSQL
+// (through the `pg` driver, with the pool settings of lib/env.ts).
 /** How long an SQLite connection waits for another's write lock before it reports SQLITE_BUSY. */
 export const SQLITE_BUSY_TIMEOUT_MS = 10_000;
 
@@ -14,7 +15,18 @@ function create(): Sequelize {
   const e = env();
   const logging = e.DB_LOG ? (sql: string) => console.log(sql) : false;
   if (e.DATABASE_URL) {
-    return new Sequelize(e.DATABASE_URL, { logging });
+    // Required here (not imported at the top) so that the embedded set-up never loads the driver; the
+    // bundle keeps it external (serverExternalPackages in next.config.js).
+    // eslint-disable-next-line @typescript-eslint/no-require-imports
+    const pg = require('pg');
+    return new Sequelize(e.DATABASE_URL, {
+      dialect: 'postgres',
+      dialectModule: pg,
+      logging,
+      pool: { max: e.DB_POOL_MAX, min: e.DB_POOL_MIN, idle: e.DB_POOL_IDLE_MS, acquire: e.DB_POOL_ACQUIRE_MS },
+      // Stored times are instants; the session speaks UTC so that nothing depends on the server's zone.
+      timezone: '+00:00',
+    });
   }
   const storage = path.resolve(/* turbopackIgnore: true */ process.cwd(), e.DATABASE_FILE);
   fs.mkdirSync(path.dirname(storage), { recursive: true });

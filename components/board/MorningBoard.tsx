@@ -9,6 +9,7 @@ import type { PlanView, Readiness } from '@/lib/data/plans';
 import { HeaterStateBadge, ReadinessBadge } from './ReadinessBadge';
 import { heaterStateAt, whenLabel } from '@/lib/plans/state';
 import { PlanDetail } from './PlanDetail';
+import { FrostNote } from './FrostNote';
 
 export interface BoardData {
   generatedAt: string;
@@ -112,9 +113,9 @@ function BoardRow({ p, zone, units, nowMs, expanded, onToggle, canConfirm, onCon
   return (
     <>
       <tr className={`align-top ${short ? 'bg-red-50/60 dark:bg-red-950/30' : ''}`}>
-        <td className="px-4 py-3 md:w-28">
+        <td className="px-4 py-3 md:w-32">
           <button type="button" onClick={onToggle} aria-expanded={expanded} aria-controls={`plan-${p.departureId}`} className="text-left">
-            <span className={`block text-xl font-semibold tabular-nums ${urgent ? 'text-ember-700 dark:text-ember-300' : 'text-slate-900 dark:text-white'}`}>
+            <span className={`block whitespace-nowrap text-xl font-semibold tabular-nums ${urgent ? 'text-ember-700 dark:text-ember-300' : 'text-slate-900 dark:text-white'}`}>
               {state === 'switch-on-now' ? 'Now' : on !== null ? whenLabel(on, zone, nowMs) : '—'}
             </span>
             <span className="block text-xs text-slate-500">{on !== null ? (p.heater ? `${p.heater.kindLabel}, ${CONTROL[p.heater.control] ?? p.heater.control}` : '') : p.heater ? 'no heat needed' : 'no heater'}</span>
@@ -123,7 +124,7 @@ function BoardRow({ p, zone, units, nowMs, expanded, onToggle, canConfirm, onCon
           <div className="mt-2 space-y-1 md:hidden">
             <div className="font-semibold text-slate-900 dark:text-white">{p.aircraft.registration} <span className="font-normal text-slate-500">{p.shelter?.name}</span></div>
             <div className="text-sm">Departs {whenLabel(dep, zone, nowMs)} · oil {formatTemp(p.oilAtDepartureC, units, 0)} (ready {formatTemp(p.readyC, units, 0)})</div>
-            <div className="flex items-center gap-2"><HeaterStateBadge state={state} /> <span className="text-xs text-slate-600">{pct(p.probabilityReady)} chance</span></div>
+            <div className="flex flex-wrap items-center gap-2"><HeaterStateBadge state={state} /> <span className="text-xs text-slate-600">{pct(p.probabilityReady)} chance</span> <FrostNote plan={p} compact /></div>
           </div>
         </td>
         <td className="hidden px-4 py-3 md:table-cell">
@@ -141,7 +142,10 @@ function BoardRow({ p, zone, units, nowMs, expanded, onToggle, canConfirm, onCon
         </td>
         <td className="hidden px-4 py-3 tabular-nums md:table-cell">{pct(p.probabilityReady)}</td>
         <td className="hidden px-4 py-3 md:table-cell">
-          <HeaterStateBadge state={state} />
+          <div className="flex flex-wrap gap-1.5">
+            <HeaterStateBadge state={state} />
+            <FrostNote plan={p} compact />
+          </div>
           <div className="mt-1 text-xs text-slate-500">{p.summary}</div>
           {p.confirmed ? <div className="mt-1 text-xs text-teal-700 dark:text-teal-300">Confirmed by {p.confirmed.by}</div> : null}
         </td>

@@ -8,6 +8,7 @@ import { formatDayTime, formatTime } from '@/lib/time';
 import type { PlanView } from '@/lib/data/plans';
 import { ConfirmButton, money, pct } from './MorningBoard';
 import { HeatCautions } from './Cautions';
+import { FrostNote } from './FrostNote';
 import { sameLocalDay } from '@/lib/plans/state';
 
 const hoursText = (ms: number) => {
@@ -98,6 +99,7 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
         ) : null}
         <span className="text-xs text-slate-500">Computed {formatDayTime(Date.parse(p.computedAt), zone)}{p.forecast?.stale ? ' · forecast out of date' : ''}</span>
       </div>
+      <FrostNote plan={p} />
       <HeatCautions always />
     </div>
   );

@@ -38,6 +38,8 @@ export interface OilTooColdData {
   heater: { kindLabel: string; powerW: number; control: string } | null;
   switchOnAt: string | null;
   fix: { readyAt: string | null; powerNeededW: number | null } | null;
+  /** Frost likely on the airframe (outside overnight) before departure. */
+  frost?: boolean;
 }
 
 export interface SwitchOnData {
@@ -52,6 +54,8 @@ export interface SwitchOnData {
   shelter: { name: string; kind: string } | null;
   heater: { kindLabel: string; powerW: number };
   pilot: { id: number; name: string };
+  /** Frost likely on the airframe (outside overnight) before departure. */
+  frost?: boolean;
 }
 
 export interface ColdNightData {
@@ -175,9 +179,16 @@ export function describeOilTooCold(d: OilTooColdData, unit: TempUnit, audience: 
     title: oilTooColdTitle(d),
     intro: [`${d.aircraft.registration} (${d.aircraft.typeLabel}), ${who} from ${d.airfield.name} on ${when}: the oil is predicted at ${oil} against a ready temperature of ${ready}. ${why}`],
     facts,
-    sections: [{ heading: 'What would fix it', items: oilFixes(d, unit), tone: 'heat' }],
+    sections: [{ heading: 'What would fix it', items: oilFixes(d, unit), tone: 'heat' }, ...(d.frost ? [FROST_SECTION] : [])],
   };
 }
+
+/** Frost on an airframe parked outside: the check before flight, in every message about that departure. */
+const FROST_SECTION: Section = {
+  heading: 'Frost likely on the airframe',
+  items: ['The airframe is forecast below the frost point before departure: check and remove frost before flight.', 'No take-off with frost, ice or snow on wings, tail or propeller.'],
+  tone: 'ice',
+};
 
 // ---------------------------------------------------------------------------------------------
 // Switch-on reminder
@@ -200,6 +211,7 @@ export function describeSwitchOn(d: SwitchOnData, unit: TempUnit, nowMs: number)
       tone: 'heat',
     });
   }
+  if (d.frost) sections.push(FROST_SECTION);
   sections.push({
     heading: 'At the aircraft',
     items: ['Check the heater, its cord and the socket before you switch on; keep the cord clear of fuel, fabric and wheels.', 'Leave the heater running until departure unless the plan says otherwise.'],

@@ -221,6 +221,7 @@ function oilData(p: PlanView): OilTooColdData {
     heater: p.heater ? { kindLabel: p.heater.kindLabel, powerW: p.heater.powerW, control: p.heater.control } : null,
     switchOnAt: p.switchOnAt,
     fix: p.fix,
+    frost: !!p.frost?.likely,
   };
 }
 
@@ -237,6 +238,7 @@ function switchOnData(p: PlanView): SwitchOnData {
     shelter: p.shelter,
     heater: { kindLabel: p.heater!.kindLabel, powerW: p.heater!.powerW },
     pilot: p.pilot,
+    frost: !!p.frost?.likely,
   };
 }
 

@@ -19,6 +19,7 @@ import type { InferCreationAttributes } from 'sequelize';
 // cached forecast and tariff; stored with a fingerprint of those inputs, recomputed when it changes.
 
 import { worstReadiness, type Readiness } from '@/lib/plans/state';
+import { frostRisk } from '@/lib/plans/frost';
 export type { Readiness };
 
 /** Plans are recomputed at most this often for the same inputs (the clock moves the earliest switch-on). */
@@ -54,6 +55,8 @@ export interface PlanView {
   confirmed: { by: string; at: string } | null;
   computedAt: string;
   forecast: { fetchedAt: string | null; stale: boolean } | null;
+  /** Frost on the airframe before departure (aircraft outside only; null under a roof or without a forecast). */
+  frost: { likely: boolean; hours: number; from: string | null; to: string | null } | null;
   problem?: string;
 }
 
@@ -176,7 +179,16 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     confirmed: plan?.confirmedAt && plan.confirmedBy ? { by: plan.confirmedBy, at: plan.confirmedAt.toISOString() } : null,
     computedAt: (plan?.computedAt ?? ctx.now).toISOString(),
     forecast: fc ? { fetchedAt: fc.fetchedAt ? new Date(fc.fetchedAt).toISOString() : null, stale: !!fc.lastErrorKind } : null,
+    frost: frostOf(d, fc),
   };
+}
+
+function frostOf(d: DepartureRecord, fc: Forecast | null | undefined): PlanView['frost'] {
+  const af = d.aircraft.airfield;
+  if (!af || !fc?.hours?.length) return null;
+  const hours = fc.hours.map((h) => ({ atMs: Date.parse(h.at), tempC: h.tempC, dewPointC: h.dewPointC, windMps: h.windMps, cloudFraction: h.cloudFraction }));
+  const r = frostRisk({ hours, shelterKind: d.aircraft.shelter?.kind ?? null, departAtMs: d.departAtMs, lat: af.latitude, lon: af.longitude });
+  return r ? { likely: r.likely, hours: r.hours, from: iso(r.fromMs), to: iso(r.toMs) } : null;
 }
 
 async function contextFor(orgId: number, departures: DepartureRecord[], now: Date, refresh: 'never' | 'if-old'): Promise<Context> {

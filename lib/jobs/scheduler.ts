@@ -14,6 +14,8 @@ export class Scheduler {
   private readonly jobs: Map<JobName, JobDefinition>;
   private timers: Cron[] = [];
   private running = new Set<JobName>();
+  /** The last attempt of each job in this process: when, and whether it ran here. */
+  readonly lastAttempts = new Map<JobName, { at: Date; outcome: 'ran' | 'lease-held' | 'error' }>();
   private readonly log: (msg: string) => void;
 
   constructor(opts: { holder?: string; jobs?: JobDefinition[]; log?: (msg: string) => void } = {}) {
@@ -29,11 +31,16 @@ export class Scheduler {
     if (this.running.has(name)) return { ran: false, reason: 'busy' };
     this.running.add(name);
     try {
-      if (!(await acquireLease({ name, holder: this.holder, ttlMs: job.ttlMs, now }))) return { ran: false, reason: 'lease-held' };
+      if (!(await acquireLease({ name, holder: this.holder, ttlMs: job.ttlMs, now }))) {
+        this.lastAttempts.set(name, { at: now, outcome: 'lease-held' });
+        return { ran: false, reason: 'lease-held' };
+      }
       const result = await job.run({ now, holder: this.holder });
       await recordRun({ name, holder: this.holder, now: new Date() });
+      this.lastAttempts.set(name, { at: now, outcome: 'ran' });
       return { ran: true, result };
     } catch (err) {
+      this.lastAttempts.set(name, { at: now, outcome: 'error' });
       this.log(`job ${name} failed: ${describeError(err)}`);
       return { ran: false, reason: 'error', error: describeError(err) };
     } finally {

@@ -67,3 +67,27 @@ test("a departure's heat plan opens at the page's width from the Departures list
   assert.ok(box && box.width > 700, `chart ${box?.width} px wide`);
   await context.close();
 });
+
+test('the frost flag shows on the board and in the pilot view exactly for the departures the plans flag', async () => {
+  const op = await signedInContext(browser, 'operator');
+  await op.page.goto(`${BASE}/board`);
+  await op.page.getByRole('heading', { name: 'Morning board' }).waitFor();
+  const board = await op.page.evaluate(async () => (await fetch('/api/board')).json());
+  for (const p of board.plans) {
+    const row = op.page.locator('tbody tr').filter({ hasText: p.aircraft.registration }).first();
+    assert.equal(await row.getByText('Frost likely').count() > 0, !!p.frost?.likely, `${p.aircraft.registration}`);
+    // Never under a roof.
+    if (p.shelter && p.shelter.kind !== 'tie-down') assert.ok(!p.frost, `${p.aircraft.registration} is under a roof`);
+  }
+  const flagged = board.plans.filter((p) => p.frost?.likely);
+  await op.context.close();
+  const pilot = await signedInContext(browser, 'pilot', { width: 390, height: 844 });
+  await pilot.page.goto(`${BASE}/departures`);
+  const mine = await pilot.page.evaluate(async () => (await fetch('/api/me/departures')).json());
+  for (const p of mine.plans.filter((x) => x.frost?.likely)) {
+    await pilot.page.getByText(/Frost likely — check and remove before flight/).first().waitFor();
+    void p;
+  }
+  console.log(`# frost flagged on ${flagged.length} of ${board.plans.length} board plans`);
+  await pilot.context.close();
+});
