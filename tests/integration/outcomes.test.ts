@@ -135,9 +135,30 @@ describe('Morning outcomes', () => {
     const ac = (await models.Aircraft.findOne({ where: { registration: 'Q-SIPI' } }))!;
     const before = (await data.outcomeStatsByAircraft({ orgId: me.organizationId, aircraftIds: [ac.id] })).get(ac.id)!;
     await signInAs(DEMO.pilot);
-    await put(d.id, { flown: true, oilAtStart: 13.5 });
+    await put(d.id, { flown: true, oilAtStart: 0 });
     const after = (await data.outcomeStatsByAircraft({ orgId: me.organizationId, aircraftIds: [ac.id] })).get(ac.id)!;
     expect(after.n).toBe(before.n + 1);
-    expect(after.biasK).toBeLessThan(before.biasK); // recorded 4 K below the prediction
+    expect(after.biasK).toBeLessThan(before.biasK); // recorded 17.5 K below the prediction
+  });
+});
+
+describe('the demo season', () => {
+  it('has weeks of recorded mornings per aircraft (some not flown) and a last morning to record', async () => {
+    const org = (await models.Organization.findOne({ where: { name: 'Frostvale Flying Club' } }))!;
+    const rows = await models.DepartureOutcome.findAll({ where: { organizationId: org.id } });
+    expect(rows.length).toBeGreaterThan(100);
+    expect(rows.some((o) => !o.flown)).toBe(true);
+    for (const o of rows.slice(0, 20)) {
+      const d = (await models.Departure.findByPk(o.departureId))!;
+      expect(d.aircraftId).toBe(o.aircraftId);
+      expect(d.departAt.getTime()).toBeLessThan(Date.now());
+    }
+    const pilot = await idOf(DEMO.pilot);
+    const entries = await data.outcomeEntries({ orgId: org.id, pilotId: pilot.id });
+    expect(entries.some((e) => e.aircraft.registration === 'Q-TAIMI' && e.outcome === null && e.predictedOilC !== null)).toBe(true);
+    const report = await data.seasonReport({ orgId: org.id, fromMs: Date.now() - 60 * 24 * HOUR, toMs: Date.now() + HOUR });
+    expect(report.aircraft.length).toBeGreaterThanOrEqual(6);
+    expect(report.organization.points.length).toBeGreaterThan(80);
+    expect(report.organization.reliability.reduce((a, r) => a + r.n, 0)).toBeGreaterThan(50);
   });
 });
