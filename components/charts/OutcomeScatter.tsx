@@ -25,7 +25,7 @@ export function OutcomeScatter({ points, unit, title = 'Predicted against record
     const all = points.flatMap((p) => [t(p.predictedC), t(p.recordedC)]);
     const plotW = W - PAD.left - PAD.right;
     const plotH = H - PAD.top - PAD.bottom;
-    const count = Math.max(3, Math.floor(Math.min(plotW, plotH) / 60));
+    const count = Math.max(4, Math.floor(Math.min(plotW, plotH) / 60));
     // One scale for both axes, so the 1:1 line is the diagonal.
     const base = linearScale(all, 0, 1, { count, minSpan: 10 });
     const x = linearScale([base.lo, base.hi], PAD.left, PAD.left + plotW, { count });

@@ -77,7 +77,7 @@ export function OutcomeCard({ entry, tempUnit, showPilot = false }: { entry: Out
       <p className="mt-0.5 text-sm text-slate-600 dark:text-slate-400">
         {entry.predictedOilC !== null ? <>Predicted {fmtTemp(entry.predictedOilC, tempUnit)} · </> : <>No plan prediction · </>}
         ready at {fmtTemp(entry.readyC, tempUnit)}
-        {entry.probabilityReady !== null ? <> · stated chance {Math.round(entry.probabilityReady * 100)} %</> : null}
+        {entry.probabilityReady !== null ? <> · stated chance {Math.round(entry.probabilityReady * 100)}{'\u00a0'}%</> : null}
       </p>
       {editing ? (
         <form
@@ -101,7 +101,7 @@ export function OutcomeCard({ entry, tempUnit, showPilot = false }: { entry: Out
               onChange={(e) => setValue(e.target.value)}
               aria-invalid={error ? true : undefined}
               aria-describedby={error ? errorId : undefined}
-              className={`${inputClass} w-24 flex-none text-center text-lg font-semibold tabular-nums`}
+              className={`${inputClass.replace('w-full', '')} w-24 flex-none text-center text-lg font-semibold tabular-nums`}
             />
             <Button type="submit" disabled={busy !== null} className="min-h-12 flex-1 sm:flex-none">
               {busy === 'record' ? 'Recording…' : 'Record'}
@@ -124,7 +124,7 @@ export function OutcomeCard({ entry, tempUnit, showPilot = false }: { entry: Out
           ) : null}
         </form>
       ) : outcome ? (
-        <div className="mt-3 flex flex-wrap items-center justify-between gap-2">
+        <div className="mt-2 flex flex-wrap items-center justify-between gap-x-2">
           <p className="text-sm text-slate-800 dark:text-slate-200">
             {outcome.flown ? (
               <>
@@ -160,7 +160,7 @@ export function OutcomeCard({ entry, tempUnit, showPilot = false }: { entry: Out
           </div>
         </div>
       ) : null}
-      <div className="mt-2">
+      <div className={result ? 'mt-2' : ''}>
         <ResultNotice result={result} okTitle="Saved" failTitle="Not saved" onRetry={last ?? undefined} />
       </div>
     </article>

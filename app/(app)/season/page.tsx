@@ -21,7 +21,8 @@ function delta(k: number | null, unit: TempUnit, digits = 1, sign = true): strin
   const s = (Math.abs(v) < 0.05 ? 0 : v).toFixed(digits);
   return `${sign && v > 0.05 ? '+' : ''}${minus(s)} ${unit === 'F' ? '°F' : 'K'}`;
 }
-const pct = (p: number | null) => (p === null ? '—' : `${Math.round(p * 100)} %`);
+const pct = (p: number | null) => (p === null ? '—' : `${Math.round(p * 100)}\u00a0%`);
+const nb = (s: string) => s.replace(/ %/g, '\u00a0%');
 const kwh = (v: number) => `${v >= 100 ? Math.round(v) : v.toFixed(1)} kWh`;
 
 function Tile({ label, value, note }: { label: string; value: string; note?: string }) {
@@ -69,15 +70,15 @@ function ReliabilityTable({ g }: { g: ReportGroup }) {
             <th scope="col" className="px-3 py-2 text-right font-semibold">Mornings</th>
             <th scope="col" className="px-3 py-2 text-right font-semibold">Ready</th>
             <th scope="col" className="py-2 pl-3 text-right font-semibold">
-              Share <span className="font-normal">(95 % interval)</span>
+              Share <span className="block font-normal">95{'\u00a0'}% interval</span>
             </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-slate-200 tabular-nums dark:divide-slate-800">
           {g.reliability.map((r) => (
             <tr key={r.label}>
-              <th scope="row" className="py-2 pr-3 font-medium text-slate-900 dark:text-white">
-                {r.label}
+              <th scope="row" className="whitespace-nowrap py-2 pr-3 font-medium text-slate-900 dark:text-white">
+                {nb(r.label)}
                 {r.meanStated !== null ? <span className="block text-xs font-normal text-slate-500">mean stated {pct(r.meanStated)}</span> : null}
               </th>
               <td className="px-3 py-2 text-right">{r.n}</td>
@@ -86,7 +87,7 @@ function ReliabilityTable({ g }: { g: ReportGroup }) {
                 {r.n ? (
                   <>
                     <span className={`font-semibold ${r.hi !== null && r.meanStated !== null && r.hi < r.meanStated ? 'text-amber-800 dark:text-amber-300' : 'text-slate-900 dark:text-white'}`}>{pct(r.share)}</span>
-                    <span className="block text-xs text-slate-500">
+                    <span className="block whitespace-nowrap text-xs text-slate-500">
                       {pct(r.lo)}–{pct(r.hi)}
                     </span>
                   </>
