@@ -1,6 +1,7 @@
 import 'server-only';
 import { randomBytes } from 'node:crypto';
 import bcrypt from 'bcryptjs';
+import { Op } from 'sequelize';
 import { db } from '@/models';
 import type { Device } from '@/models/Device';
 import type { DeviceEventKind } from '@/models/DeviceEvent';
@@ -115,4 +116,19 @@ export async function recordDeviceAck({ orgId, deviceId, commandId }: { orgId: n
     await Device.update({ lastSeenAt: new Date() }, { where: { id: deviceId }, transaction });
     return true;
   });
+}
+
+/** Stores one reading of a device (a flagged one too, marked). */
+export async function storeReading(r: { orgId: number; deviceId: number; atMs: number; tempC?: number | null; on?: boolean | null; powerW?: number | null; flagged?: boolean }) {
+  const { DeviceReading } = db();
+  await DeviceReading.create({ organizationId: r.orgId, deviceId: r.deviceId, at: new Date(r.atMs), tempC: r.tempC ?? null, on: r.on ?? null, powerW: r.powerW ?? null, flagged: r.flagged ?? false });
+}
+
+/** The device's readings since `sinceMs`, oldest first (at most `limit`), scoped by organization. */
+export async function listReadings({ orgId, deviceId, sinceMs, limit = 2000 }: { orgId: number; deviceId: number; sinceMs: number; limit?: number }) {
+  const { Device, DeviceReading } = db();
+  const d = await Device.findOne({ where: { id: deviceId, organizationId: orgId } });
+  if (!d) throw new NotFound('device');
+  const rows = await DeviceReading.findAll({ where: { organizationId: orgId, deviceId, at: { [Op.gte]: new Date(sinceMs) } }, order: [['at', 'DESC'], ['id', 'DESC']], limit });
+  return rows.reverse().map((r) => ({ at: r.at.toISOString(), tempC: r.tempC, on: r.on, powerW: r.powerW, flagged: r.flagged }));
 }

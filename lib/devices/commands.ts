@@ -141,3 +141,36 @@ export function parseAck(payload: string): { commandId: string } | null {
 export function ackOverdue({ sentAtMs, ackedAtMs, nowMs }: { sentAtMs: number; ackedAtMs: number | null; nowMs: number }): boolean {
   return ackedAtMs === null && nowMs - sentAtMs > ACK_TIMEOUT_MS;
 }
+
+const atSchema = z.string().max(40).refine((s) => Number.isFinite(Date.parse(s)));
+const tempSchema = z.object({ tempC: z.number(), at: atSchema.optional() });
+const stateSchema = z.object({ on: z.boolean(), powerW: z.number().min(0).max(100_000).optional(), at: atSchema.optional() });
+
+/** A probe's `{ tempC, at? }`: null when malformed; `flagged` when the value is impossible (never trusted). */
+export function parseTemp(payload: string, nowMs: number): { atMs: number; tempC: number; flagged: boolean } | null {
+  try {
+    const r = tempSchema.safeParse(JSON.parse(payload));
+    if (!r.success) return null;
+    const atMs = readingTime(r.data.at, nowMs);
+    const t = r.data.tempC;
+    return { atMs, tempC: t, flagged: !(Number.isFinite(t) && t > -60 && t < 200) };
+  } catch {
+    return null;
+  }
+}
+
+/** A relay's `{ on, powerW?, at? }`, or null when malformed. */
+export function parseState(payload: string, nowMs: number): { atMs: number; on: boolean; powerW: number | null } | null {
+  try {
+    const r = stateSchema.safeParse(JSON.parse(payload));
+    return r.success ? { atMs: readingTime(r.data.at, nowMs), on: r.data.on, powerW: r.data.powerW ?? null } : null;
+  } catch {
+    return null;
+  }
+}
+
+/** The device's own time stamp if within 10 minutes of the server's clock, else the server's. */
+function readingTime(at: string | undefined, nowMs: number): number {
+  const t = at ? Date.parse(at) : Number.NaN;
+  return Number.isFinite(t) && Math.abs(t - nowMs) < 10 * 60_000 ? t : nowMs;
+}

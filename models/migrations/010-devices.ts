@@ -1,6 +1,6 @@
 import { DataTypes, type QueryInterface } from 'sequelize';
 
-// MQTT devices (relays and probes) with hashed credentials, and their audit log.
+// MQTT devices (relays and probes) with hashed credentials, their audit log and their readings.
 const id = { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true };
 const ref = (model: string, allowNull = false, onDelete = 'CASCADE') => ({ type: DataTypes.INTEGER, allowNull, references: { model, key: 'id' }, onDelete });
 
@@ -33,9 +33,22 @@ export async function up({ context: q }: { context: QueryInterface }) {
   });
   await q.addIndex('device_events', ['organizationId', 'createdAt']);
   await q.addIndex('device_events', ['deviceId', 'commandId']);
+  await q.createTable('device_readings', {
+    id,
+    organizationId: ref('organizations'),
+    deviceId: ref('devices'),
+    at: { type: DataTypes.DATE, allowNull: false },
+    tempC: { type: DataTypes.FLOAT, allowNull: true },
+    on: { type: DataTypes.BOOLEAN, allowNull: true },
+    powerW: { type: DataTypes.FLOAT, allowNull: true },
+    /** A reading outside the plausible range is stored flagged and never trusted. */
+    flagged: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+  });
+  await q.addIndex('device_readings', ['deviceId', 'at']);
 }
 
 export async function down({ context: q }: { context: QueryInterface }) {
+  await q.dropTable('device_readings');
   await q.dropTable('device_events');
   await q.dropTable('devices');
 }

@@ -108,6 +108,32 @@ describe('devices', () => {
     s.end(true);
   });
 
+  it('stores probe readings, flags impossible ones, and serves them org-scoped', async () => {
+    const { ensureBroker, stopBroker } = await import('@/lib/devices/service');
+    const b = await ensureBroker(0);
+    try {
+      await signInAs(DEMO.operator);
+      const a = await aircraftOf(DEMO.operator);
+      const made = await call(route.POST as never, { method: 'POST', body: { kind: 'probe', measures: 'oil', label: 'Sump probe', aircraftId: a.id } });
+      const p = made.body as { device: { id: number; username: string; topicPrefix: string }; password: string };
+      const c = await mqtt.connectAsync(`mqtt://127.0.0.1:${b.port}`, { username: p.device.username, password: p.password, reconnectPeriod: 0 });
+      await c.publishAsync(`${p.device.topicPrefix}temp`, JSON.stringify({ tempC: -4.25 }), { qos: 1 });
+      await c.publishAsync(`${p.device.topicPrefix}temp`, JSON.stringify({ tempC: 850 }), { qos: 1 });
+      await c.publishAsync(`${p.device.topicPrefix}temp`, 'not json', { qos: 1 });
+      await new Promise((r) => setTimeout(r, 300));
+      await c.endAsync();
+      const readings = await import('@/app/api/devices/[id]/readings/route');
+      const res = await call(readings.GET as never, { params: { id: String(p.device.id) } });
+      expect(res.status).toBe(200);
+      const list = (res.body as { readings: { tempC: number; flagged: boolean }[] }).readings;
+      expect(list.map((r) => [r.tempC, r.flagged])).toEqual([[-4.25, false], [850, true]]);
+      await signInAs(DEMO.otherManager);
+      expect((await call(readings.GET as never, { params: { id: String(p.device.id) } })).status).toBe(404);
+    } finally {
+      await stopBroker();
+    }
+  });
+
   it('a taken port fails only the broker start (EADDRINUSE, reported as port-in-use by lib/jobs)', async () => {
     const { startEmbeddedBroker } = await import('@/lib/devices/broker');
     await expect(startEmbeddedBroker(broker.port, { authenticate: async () => null })).rejects.toMatchObject({ code: 'EADDRINUSE' });
