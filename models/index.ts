@@ -100,9 +100,19 @@ export function migrator() {
   });
 }
 
-/** Applies every pending migration; a second run applies nothing. Returns the names applied. */
+/** Key of the PostgreSQL advisory lock that lets one instance at a time migrate. */
+const MIGRATION_LOCK = 7_231_406;
+
+/**
+ * Applies every pending migration; a second run applies nothing. Returns the names applied. On
+ * PostgreSQL, instances starting together take turns (a transaction-scoped advisory lock): the first
+ * migrates, the others then find nothing pending.
+ */
 export async function migrate(): Promise<string[]> {
-  db();
-  const done = await migrator().up();
-  return done.map((m) => m.name);
+  const { sequelize } = db();
+  if (sequelize.getDialect() !== 'postgres') return (await migrator().up()).map((m) => m.name);
+  return sequelize.transaction(async (t) => {
+    await sequelize.query(`SELECT pg_advisory_xact_lock(${MIGRATION_LOCK})`, { transaction: t });
+    return (await migrator().up()).map((m) => m.name);
+  });
 }
