@@ -47,6 +47,18 @@ export class TooLarge extends AppError {
   }
 }
 
+export class UnsupportedMediaType extends AppError {
+  constructor(message = 'Send the body as JSON with Content-Type: application/json.') {
+    super(415, 'unsupported_media_type', message);
+  }
+}
+
+export class TooManyRequests extends AppError {
+  constructor(public retryAfterSeconds: number, message = 'Too many attempts from this address. Wait a while, then try again.') {
+    super(429, 'too_many_requests', message);
+  }
+}
+
 /** Field errors from a zod error: the path joined with dots ("engine.nodes.0.lossWPerK"). */
 export function zodFields(err: ZodError): FieldError[] {
   return err.issues.map((i) => ({ field: i.path.map(String).join('.') || '(body)', message: i.message }));

@@ -137,6 +137,33 @@ export async function requestPasswordReset({ email, now = new Date() }: { email:
   });
 }
 
+const queuedResets = new Set<Promise<void>>();
+
+/**
+ * The reset request as the route makes it: the work (look-up, token, e-mail) is queued and the caller
+ * answered at once, so the answer takes the same path and the same time whether or not the address has
+ * an account. `then` runs after the work (delivery); failures are logged without the address.
+ */
+export function queuePasswordReset({ email, then }: { email: string; then?: () => void }): void {
+  const p: Promise<void> = requestPasswordReset({ email })
+    .then(() => then?.())
+    .catch((err) => {
+      // Two requests at once for one account: the outbox's unique dedupe key keeps the second e-mail out.
+      if ((err as { name?: string })?.name === 'SequelizeUniqueConstraintError') return;
+      console.error('[thawline] reset request failed', err instanceof Error ? err.name : 'error');
+    })
+    .finally(() => queuedResets.delete(p));
+  queuedResets.add(p);
+}
+
+/** For tests and shutdown: how many queued reset requests are still running, and a wait for them. */
+export function queuedResetCount(): number {
+  return queuedResets.size;
+}
+export async function settleQueuedResets(): Promise<void> {
+  while (queuedResets.size) await Promise.all([...queuedResets]);
+}
+
 /** Writes the invitation token and its e-mail (inside the caller's transaction). */
 export async function writeInvitation({
   orgId,

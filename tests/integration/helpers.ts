@@ -47,7 +47,7 @@ export async function signInAs(email: string) {
   const { db } = await import('@/models');
   const u = await db().User.findOne({ where: { email } });
   if (!u) throw new Error(`no demo user ${email}`);
-  setClaims({ userId: u.id, orgId: u.organizationId, role: u.role });
+  setClaims({ userId: u.id, orgId: u.organizationId, role: u.role, sessionVersion: u.sessionVersion });
   return u;
 }
 
@@ -57,15 +57,23 @@ export function signOut() {
 
 type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
-/** Calls a route handler as Next.js would, and returns the status and the parsed JSON body. */
+/**
+ * Calls a route handler as Next.js would, and returns the status and the parsed JSON body. By default
+ * the request looks like the app's own page calling its API (Origin http://localhost, Sec-Fetch-Site
+ * same-origin, JSON); `headers` replaces any of them (a null value leaves that header out).
+ */
 export async function call(
   handler: Handler,
-  opts: { method?: string; url?: string; body?: unknown; rawBody?: string; params?: Record<string, string> } = {},
+  opts: { method?: string; url?: string; body?: unknown; rawBody?: BodyInit; params?: Record<string, string>; headers?: Record<string, string | null> } = {},
 ) {
   const url = `http://localhost${opts.url ?? '/api/test'}`;
-  const init: RequestInit = { method: opts.method ?? 'GET', headers: { 'content-type': 'application/json' } };
+  const headers: Record<string, string> = {};
+  const wanted: Record<string, string | null> = { 'content-type': 'application/json', origin: 'http://localhost', 'sec-fetch-site': 'same-origin', ...opts.headers };
+  for (const [k, v] of Object.entries(wanted)) if (v !== null) headers[k] = v;
+  const init: RequestInit & { duplex?: 'half' } = { method: opts.method ?? 'GET', headers };
   if (opts.rawBody !== undefined) init.body = opts.rawBody;
   else if (opts.body !== undefined) init.body = JSON.stringify(opts.body);
+  if (init.body instanceof ReadableStream) init.duplex = 'half';
   const res = await handler(new Request(url, init), { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();
   let json: any = null;
