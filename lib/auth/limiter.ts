@@ -36,7 +36,9 @@ const g = globalThis as unknown as { __thawlineLimiters?: Limiters };
 function make(keyPrefix: string, points: number, duration: number): Limiter {
   const e = env();
   if (e.DATABASE_URL && getSequelize().getDialect() === 'postgres') {
-    return new RateLimiterPostgres({ storeClient: getSequelize(), storeType: 'sequelize', tableName: 'rate_limits', keyPrefix, points, duration });
+    // The table comes from migration 008-rate-limits; the store's own background creation made the
+    // first sign-ins of a fresh instance fail ('Table is not created yet') and raced between instances.
+    return new RateLimiterPostgres({ storeClient: getSequelize(), storeType: 'sequelize', tableName: 'rate_limits', tableCreated: true, keyPrefix, points, duration });
   }
   return new RateLimiterMemory({ keyPrefix, points, duration });
 }
