@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { volumeLabel, type VolumeUnit } from '@/lib/units';
-import type { OilLog } from '@/lib/data/oil';
+import type { OilLog } from '@/lib/views/oil';
 import { useSubmit } from './useSubmit';
 
 export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSaved }: { aircraftId: number; zone: string; currentHours: number | null; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {

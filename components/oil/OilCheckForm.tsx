@@ -6,7 +6,7 @@ import { TextField } from '@/components/ui/Field';
 import { correctedLevelL, correctionFraction } from '@/lib/oil/level';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { fromDisplayTemp, fromDisplayVolume, tempLabel, volumeLabel, type TempUnit, type VolumeUnit } from '@/lib/units';
-import type { OilLog } from '@/lib/data/oil';
+import type { OilLog } from '@/lib/views/oil';
 import { fmtLevel, fmtPercent } from './format';
 import { useSubmit } from './useSubmit';
 

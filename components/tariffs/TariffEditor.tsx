@@ -5,7 +5,7 @@ import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotic
 import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { localDateOf } from '@/lib/time';
-import type { TariffRecord } from '@/lib/data/tariffs';
+import type { TariffRecord } from '@/lib/views/tariffs';
 import { HOURS, MAX_PERIODS, MONTH_NAMES, MONTHS } from '@/lib/validation/tariffs';
 
 type DayKind = 'weekday' | 'weekend';

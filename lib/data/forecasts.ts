@@ -10,6 +10,9 @@ import type { ForecastHour, HourlyForecast } from '@/lib/weather/types';
 import { simulate, type SoakModel } from '@/lib/thermal';
 import { addDays, localDateKey, localDateOf, sunDay, tonightWindow } from '@/lib/time';
 import { findAirfield, type ShelterRow } from './airfields';
+import type { ForecastStateView, ForecastStatus, ForecastView, ShelterCurve, SunDayView, TonightSummary } from '@/lib/views/forecasts';
+
+export type { ForecastStateView, ForecastStatus, ForecastView, ShelterCurve, SunDayView, TonightSummary };
 
 // The forecast cache: one stored forecast per airfield, refreshed on demand and when older than an
 // hour. When the service fails the last forecast stays in use, marked stale with its age; a failure
@@ -28,8 +31,6 @@ const CHART_STEP_MINUTES = 30;
 const HOUR_MS = 3_600_000;
 const FAKE_BASE_URL = 'http://fake-weather.internal/api/fake-weather';
 
-export type ForecastStatus = 'fresh' | 'stale' | 'missing';
-
 /** What people are told about a failure; the service's own words stay in the server log. */
 const FAILURE_MESSAGE: Record<string, string> = {
   timeout: 'The forecast service did not answer in time.',
@@ -38,52 +39,6 @@ const FAILURE_MESSAGE: Record<string, string> = {
   network: 'The forecast service could not be reached.',
   internal: 'The forecast could not be updated.',
 };
-
-export interface ForecastStateView {
-  status: ForecastStatus;
-  fetchedAt: string | null;
-  ageMinutes: number | null;
-  source: 'fake' | 'remote' | null;
-  /** The last attempt's failure, while no later attempt has succeeded. */
-  error: { kind: string; message: string; at: string } | null;
-}
-
-export interface TonightSummary {
-  from: string;
-  to: string;
-  /** The forecast low of outside air in the night window; null without a forecast covering it. */
-  low: { tempC: number; at: string } | null;
-}
-
-export interface SunDayView {
-  date: string;
-  civilDawn: string | null;
-  sunrise: string | null;
-  sunset: string | null;
-  civilDusk: string | null;
-  polar: 'day' | 'night' | null;
-}
-
-export interface ShelterCurve {
-  shelterId: number;
-  name: string;
-  kind: ShelterRow['kind'];
-  /** Shelter air at each chart time, °C. */
-  airC: number[];
-  /** Lowest shelter air in tonight's window (°C), when the chart covers it. */
-  tonightLowC: number | null;
-}
-
-export interface ForecastView extends ForecastStateView {
-  airfieldId: number;
-  timeZone: string;
-  now: string;
-  tonight: TonightSummary;
-  /** Local days the chart touches, with sunrise, sunset and civil twilight. */
-  sun: SunDayView[];
-  /** Outside air and each shelter's air, every 30 min; null without a forecast. */
-  chart: { atMs: number[]; outsideC: number[]; shelters: ShelterCurve[] } | null;
-}
 
 // ---------------------------------------------------------------------------------------------
 // State of a stored row

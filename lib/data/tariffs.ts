@@ -5,6 +5,9 @@ import { NotFound } from '@/lib/api/errors';
 import { offsetSecondsAt } from '@/lib/time';
 import { DEFAULT_TARIFF, type TariffInput, type TariffShape } from '@/lib/validation/tariffs';
 import { writeTransaction } from '@/models/transaction';
+import type { PricedInterval, TariffRecord } from '@/lib/views/tariffs';
+
+export type { PricedInterval, TariffRecord };
 
 export { DEFAULT_TARIFF, type TariffShape };
 
@@ -14,23 +17,6 @@ export { DEFAULT_TARIFF, type TariffShape };
 const HOUR_MS = 3_600_000;
 /** Longest span tariffPeriodsBetween expands (a guard against runaway loops). */
 const MAX_SPAN_MS = 400 * 24 * HOUR_MS;
-
-export interface TariffRecord extends TariffShape {
-  airfieldId: number;
-  airfieldName: string;
-  /** The airfield's zone: the schedule's hours are local hours there. */
-  timeZone: string;
-  source: 'stored' | 'default';
-  updatedAt: string | null;
-}
-
-export interface PricedInterval {
-  fromMs: number;
-  toMs: number;
-  pricePerKWh: number;
-  /** The period's name ("Night", "Peak" …). */
-  period: string;
-}
 
 async function airfieldOf({ orgId, airfieldId }: { orgId: number; airfieldId: number }) {
   const { Airfield } = db();

@@ -3,14 +3,14 @@
 // as a point). Every issue carries its field's path, so errors show beside the field.
 import { z } from 'zod';
 import { toNumberInput } from './numbers';
-import type { ShelterKind } from '@/models/Shelter';
-import { shelterDefaultsFor } from '@/lib/seed/defaults';
+import type { ShelterKind } from '@/lib/thermal/presets';
+import { shelterDefaultsFor } from '@/lib/defaults';
 import { canonicalTimeZone } from '@/lib/time';
 import { text } from './text';
 
 export type { ShelterKind };
 
-/** The shelter kinds, in the order forms offer them (the same values as the model's; no model import, so forms stay light). */
+/** The shelter kinds, in the order forms offer them. The one list: models/Shelter.ts takes it from here; the type is the soak model's (lib/thermal/presets.ts). */
 export const SHELTER_KINDS = ['heated-hangar', 'unheated-hangar', 't-hangar', 'tie-down'] as const satisfies readonly ShelterKind[];
 type Exhaustive<T extends ShelterKind> = [ShelterKind] extends [T] ? true : never;
 const exhaustive: Exhaustive<(typeof SHELTER_KINDS)[number]> = true;

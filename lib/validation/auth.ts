@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ROLES } from '@/lib/auth/permissions';
+import { ROLES } from '@/lib/roles';
 import { text } from './text';
 
 export const email = text().trim().toLowerCase().email('Enter a valid e-mail address.').max(254);

@@ -1,6 +1,6 @@
 // Invitations, password resets and their single-use tokens: schemas for the forms and route handlers.
 import { z } from 'zod';
-import { ROLES } from '@/lib/auth/permissions';
+import { ROLES } from '@/lib/roles';
 import { email, password } from './auth';
 import { text } from './text';
 
