@@ -198,7 +198,7 @@ describe('cold-night notice', () => {
     const mails = to(DEMO.manager).filter((m) => m.subject.startsWith('Cold night:'));
     expect(mails).toHaveLength(1);
     const m = mails[0];
-    expect(m.subject).toMatch(/^Cold night: -?\d+ °C forecast at .+ and 2 other airfields$/);
+    expect(m.subject).toMatch(/^Cold night: −?\d+ °C forecast at .+ and 2 other airfields$/);
     for (const name of ['Kettle Lake', 'Birchmoor', 'Stonegate Strip']) expect(m.text).toContain(name);
     expect(m.text).toContain('Aircraft that need heat');
     expect(m.text).toMatch(/Total planned\s+\d+(\.\d)? kWh/);
