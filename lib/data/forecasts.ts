@@ -7,7 +7,8 @@ import { ForecastError, fetchForecast } from '@/lib/weather/openMeteo';
 import { createFakeFetch } from '@/lib/weather/fake';
 import { ageMinutes, isStale, nightLow, toSoakInputs } from '@/lib/weather/derive';
 import type { ForecastHour, HourlyForecast } from '@/lib/weather/types';
-import { simulate, type SoakModel } from '@/lib/thermal';
+import { outsideAt, simulate, type SoakModel } from '@/lib/thermal';
+import { shelterModelOf } from '@/lib/shelter-model';
 import { addDays, localDateKey, localDateOf, sunDay, tonightWindow } from '@/lib/time';
 import { findAirfield, type ShelterRow } from './airfields';
 import type { ForecastStateView, ForecastStatus, ForecastView, ShelterCurve, SunDayView, TonightSummary } from '@/lib/views/forecasts';
@@ -250,44 +251,22 @@ const round2 = (v: number) => Math.round(v * 100) / 100;
 /** The shelter's air over the chart times from the soak model, started at the forecast's first hour. */
 function shelterAir(s: ShelterRow, hours: readonly ForecastHour[], site: { lat: number; lon: number }, times: number[]): number[] {
   const inputs = toSoakInputs(hours);
+  const shelter = shelterModelOf(s);
   // An open tie-down has no air of its own: the engine sits in the outside air.
-  if (s.kind === 'tie-down' || !(s.lossWPerK > 0) || !(s.heatCapacityJPerK > 0)) {
-    return times.map((t) => outsideLinear(inputs.outside, t));
-  }
-  const startMs = inputs.outside[0].atMs;
-  const endMs = times[times.length - 1];
-  const heated = s.kind === 'heated-hangar' && s.setpointC !== null && (s.heatingPowerW ?? 0) > 0;
+  if (shelter.kind === 'tie-down') return times.map((t) => round2(outsideAt(inputs.outside, t)));
   const model: SoakModel = {
-    startMs,
-    endMs,
+    startMs: inputs.outside[0].atMs,
+    endMs: times[times.length - 1],
     outside: inputs.outside,
     cloud: inputs.cloud,
     wind: inputs.wind,
     site,
-    shelter: {
-      kind: 'hangar',
-      heatCapacityJPerK: s.heatCapacityJPerK,
-      lossWPerK: s.lossWPerK,
-      solarApertureM2: s.solarApertureM2,
-      ...(heated ? { setpointC: s.setpointC!, heatingPowerW: s.heatingPowerW! } : {}),
-    },
+    shelter,
     // The shelter air does not feel the engines: any oil node gives the same shelter curve.
     oil: { heatCapacityJPerK: 1e5, lossWPerK: 10, initialTempC: inputs.outside[0].tempC },
   };
   const series = simulate(model, { atMs: times });
   return Array.from(series.shelterC, round2);
-}
-
-function outsideLinear(pts: readonly { atMs: number; tempC: number }[], t: number): number {
-  if (t <= pts[0].atMs) return pts[0].tempC;
-  for (let i = 1; i < pts.length; i++) {
-    if (t <= pts[i].atMs) {
-      const a = pts[i - 1];
-      const b = pts[i];
-      return round2(a.tempC + ((b.tempC - a.tempC) * (t - a.atMs)) / (b.atMs - a.atMs));
-    }
-  }
-  return pts[pts.length - 1].tempC;
 }
 
 function sunView(zone: string, lat: number, lon: number, fromMs: number, toMs: number): SunDayView[] {
@@ -341,7 +320,7 @@ export async function forecastView({
       for (let t = startMs; t < endMs; t += step) atMs.push(t);
       atMs.push(endMs);
       const outside = toSoakInputs(hours).outside;
-      const outsideC = atMs.map((t) => outsideLinear(outside, t));
+      const outsideC = atMs.map((t) => round2(outsideAt(outside, t)));
       const from = Date.parse(tonight.from);
       const to = Date.parse(tonight.to);
       const curves: ShelterCurve[] = shelters
