@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, call, freshDatabase, signInAs, signOut } from './helpers';
-import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../unit/mail/testSmtp';
+import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../support/smtp';
 
 // The alerts end to end against a real SMTP server (smtp-server on 127.0.0.1, port 0): evaluation on the
 // seeded demo writes alerts and outbox rows, delivery sends them through nodemailer via SMTP_URL.
