@@ -14,7 +14,7 @@ import type { ForecastView, SunDayView } from '@/lib/views/forecasts';
 import { formatNumber, formatTemp, type TempUnit } from './format';
 import { RemoveButton } from './RemoveButton';
 import { ShelterKindIcon } from './ShelterKindIcon';
-import { SortHeader, TableCard, TableScroll, theadClass, useSorted } from './sortable';
+import { SortHeader, TableCard, TableScroll, theadClass, useSorted } from '@/components/ui/sortable';
 
 const SHELTER_COLOURS = ['#2b769b', '#7c3aed', '#0d9488', '#c026d3', '#65a30d', '#0369a1'];
 const HEAT_COLOUR = '#e34608';

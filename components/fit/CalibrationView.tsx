@@ -15,7 +15,7 @@ import type { ThermalParams } from '@/lib/views/aircraft';
 import { FitResults } from './FitResults';
 import { ProfileHistory, type Profile } from './ProfileHistory';
 import { UploadForm } from './UploadForm';
-import { StatusArea } from './StatusArea';
+import { StatusArea } from '@/components/ui/StatusArea';
 import { PreviewDetails } from './PreviewDetails';
 import { sendFile } from './upload';
 

@@ -11,7 +11,7 @@ import { tempLabel, toDisplayDelta, toDisplayTemp, type TempUnit } from '@/lib/u
 import type { LogRecord, SeriesForChart, StoredFit } from '@/lib/views/logs';
 import type { Estimate } from '@/lib/fit/cooldown';
 import { fmtEstimate, fmtKJ, fmtRelative } from './format';
-import { StatusArea } from './StatusArea';
+import { StatusArea } from '@/components/ui/StatusArea';
 
 interface Props {
   aircraftId: number;

@@ -6,12 +6,12 @@ import { TextField } from '@/components/ui/Field';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { volumeLabel, type VolumeUnit } from '@/lib/units';
 import type { OilLog } from '@/lib/views/oil';
-import { useSubmit } from './useSubmit';
+import { useSubmit } from '@/components/ui/useSubmit';
 
 export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSaved }: { aircraftId: number; zone: string; currentHours: number | null; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {
   const blank = () => ({ changedAt: localIsoMinutes(zone, Date.now()), engineHours: currentHours !== null ? String(currentHours) : '', oilGrade: '', quantity: '', notes: '' });
   const [form, setForm] = useState(blank);
-  const { fields, status, pending, submit } = useSubmit();
+  const { fields, status, pending, submit, canRetry, retry } = useSubmit();
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
 
   async function onSubmit(e: React.FormEvent) {
@@ -38,6 +38,11 @@ export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSa
         <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
           {status}
         </p>
+        {canRetry ? (
+          <Button type="button" variant="secondary" onClick={() => void retry()} disabled={pending}>
+            Try again
+          </Button>
+        ) : null}
       </div>
     </form>
   );
@@ -46,7 +51,7 @@ export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSa
 export function IntervalForm({ aircraftId, hours, months, onSaved }: { aircraftId: number; hours: number | null; months: number | null; onSaved: () => void }) {
   const [h, setH] = useState(hours !== null ? String(hours) : '');
   const [m, setM] = useState(months !== null ? String(months) : '');
-  const { fields, status, pending, submit } = useSubmit();
+  const { fields, status, pending, submit, canRetry, retry } = useSubmit();
   async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
     await submit(`/api/aircraft/${aircraftId}/oil/settings`, 'PATCH', { oilChangeIntervalHours: h, oilChangeIntervalMonths: m }, 'Interval saved.', () => onSaved());
@@ -66,6 +71,11 @@ export function IntervalForm({ aircraftId, hours, months, onSaved }: { aircraftI
         <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
           {status}
         </p>
+        {canRetry ? (
+          <Button type="button" variant="secondary" onClick={() => void retry()} disabled={pending}>
+            Try again
+          </Button>
+        ) : null}
       </div>
     </form>
   );

@@ -8,14 +8,14 @@ import { localIsoMinutes } from '@/lib/weather/tz';
 import { fromDisplayTemp, fromDisplayVolume, tempLabel, volumeLabel, type TempUnit, type VolumeUnit } from '@/lib/units';
 import type { OilLog } from '@/lib/views/oil';
 import { fmtLevel, fmtPercent } from './format';
-import { useSubmit } from './useSubmit';
+import { useSubmit } from '@/components/ui/useSubmit';
 
 const EMPTY = { level: '', oilTemp: '', outsideTemp: '', bladesTurned: '', engineHours: '', added: '', notes: '' };
 const num = (s: string) => Number(s.trim().replace(',', '.').replace('\u2212', '-'));
 
 export function OilCheckForm({ aircraftId, zone, drySump, tempUnit, volumeUnit, onSaved }: { aircraftId: number; zone: string; drySump: boolean; tempUnit: TempUnit; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {
   const [form, setForm] = useState({ ...EMPTY, checkedAt: localIsoMinutes(zone, Date.now()) });
-  const { fields, status, pending, submit } = useSubmit();
+  const { fields, status, pending, submit, canRetry, retry } = useSubmit();
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
   const tl = tempLabel(tempUnit);
   const vl = volumeLabel(volumeUnit);
@@ -71,6 +71,11 @@ export function OilCheckForm({ aircraftId, zone, drySump, tempUnit, volumeUnit, 
         <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
           {status}
         </p>
+        {canRetry ? (
+          <Button type="button" variant="secondary" onClick={() => void retry()} disabled={pending}>
+            Try again
+          </Button>
+        ) : null}
       </div>
     </form>
   );

@@ -1,7 +1,7 @@
 'use client';
 import { useMemo, useState } from 'react';
 import { Button, Card, Notice } from '@/components/ui/primitives';
-import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotice';
+import { ResultNotice, type FormResult } from '@/components/ui/ResultNotice';
 import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { localDateOf } from '@/lib/time';

@@ -56,7 +56,6 @@ export function signOut() {
 }
 
 /** Any route handler: apiRoute()'s, next-auth's, a plain `GET(req)`. */
-// biome-ignore lint/suspicious/noExplicitAny: the widest handler type, narrowed by ParamsOf below
 type RouteHandler = (req: Request, ctx: any) => Response | Promise<Response>;
 /** The route parameters a handler reads (`{ id: string }` …), from its own signature. */
 type ParamsOf<H> = [H] extends [never]
