@@ -71,9 +71,3 @@ export async function putTariff({ orgId, airfieldId, input }: { orgId: number; a
   });
 }
 
-/** Removes the stored tariff: the airfield goes back to the flat default. */
-export async function clearTariff({ orgId, airfieldId }: { orgId: number; airfieldId: number }): Promise<TariffRecord> {
-  const af = await airfieldOf({ orgId, airfieldId });
-  await Tariff.destroy({ where: { airfieldId: af.id, organizationId: orgId } });
-  return record(af, null);
-}

@@ -162,7 +162,6 @@ export function completeShelter(s: ShelterDraft): ShelterValues {
 
 /** A new shelter (or a whole shelter after a change): thermal values optional, prefilled from the kind. */
 export const shelterSchema = z.object(shelterFields).superRefine(checkShelter).transform(completeShelter);
-export type ShelterInput = z.input<typeof shelterSchema>;
 
 /** A change to a shelter: any of its fields. The handler merges it with the stored shelter and checks the whole with shelterSchema. */
 export const shelterUpdateSchema = z
@@ -192,7 +191,6 @@ export const airfieldCreateSchema = z.object({
     .default([]),
 });
 export type AirfieldCreate = z.infer<typeof airfieldCreateSchema>;
-export type AirfieldCreateInput = z.input<typeof airfieldCreateSchema>;
 
 export const airfieldUpdateSchema = z
   .object({

@@ -10,13 +10,6 @@ export const signInSchema = z.object({
   password: text().max(200),
 });
 
-export const createUserSchema = z.object({
-  name: text().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.'),
-  email,
-  role: z.enum(ROLES),
-  temporaryPassword: password,
-});
-
 export const updateUserSchema = z
   .object({
     role: z.enum(ROLES).optional(),

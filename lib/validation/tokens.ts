@@ -15,7 +15,6 @@ export const inviteUserSchema = z.object({
   role: z.enum(ROLES, { error: 'Choose a role.' }),
   temporaryPassword: password.optional(),
 });
-export type InviteUserInput = z.infer<typeof inviteUserSchema>;
 
 const newPassword = z
   .object({ password, confirm: text().max(200).optional() })
