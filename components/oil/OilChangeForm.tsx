@@ -1,12 +1,12 @@
 'use client';
 // Recording an oil change, and (for operators and managers) the aircraft's oil-change interval.
 import { useState } from 'react';
-import { Button } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { volumeLabel, type VolumeUnit } from '@/lib/units';
 import type { OilLog } from '@/lib/views/oil';
 import { useSubmit } from '@/components/ui/useSubmit';
+import { SubmitRow } from '@/components/ui/SubmitRow';
 
 export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSaved }: { aircraftId: number; zone: string; currentHours: number | null; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {
   const blank = () => ({ changedAt: localIsoMinutes(zone, Date.now()), engineHours: currentHours !== null ? String(currentHours) : '', oilGrade: '', quantity: '', notes: '' });
@@ -31,19 +31,7 @@ export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSa
         <TextField id="ch-quantity" name="quantity" label={`Quantity filled (${volumeLabel(volumeUnit)})`} inputMode="decimal" value={form.quantity} onChange={set('quantity')} error={fields.quantity} />
       </div>
       <TextField id="ch-notes" name="notes" label="Notes" value={form.notes} onChange={set('notes')} error={fields.notes} autoComplete="off" />
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" variant="secondary" disabled={pending}>
-          {pending ? 'Saving…' : 'Record oil change'}
-        </Button>
-        <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
-          {status}
-        </p>
-        {canRetry ? (
-          <Button type="button" variant="secondary" onClick={() => void retry()} disabled={pending}>
-            Try again
-          </Button>
-        ) : null}
-      </div>
+      <SubmitRow label="Record oil change" pending={pending} status={status} canRetry={canRetry} onRetry={() => void retry()} variant="secondary" />
     </form>
   );
 }
@@ -64,19 +52,7 @@ export function IntervalForm({ aircraftId, hours, months, onSaved }: { aircraftI
         <TextField id="int-months" name="oilChangeIntervalMonths" label="Or every (months)" inputMode="numeric" value={m} onChange={(e) => setM(e.target.value)} error={fields.oilChangeIntervalMonths} />
       </div>
       <p className="text-xs text-slate-500 dark:text-slate-400">Whichever comes first. Leave one empty to use only the other. Follow the engine manufacturer&apos;s schedule.</p>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" variant="secondary" disabled={pending}>
-          {pending ? 'Saving…' : 'Save interval'}
-        </Button>
-        <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
-          {status}
-        </p>
-        {canRetry ? (
-          <Button type="button" variant="secondary" onClick={() => void retry()} disabled={pending}>
-            Try again
-          </Button>
-        ) : null}
-      </div>
+      <SubmitRow label="Save interval" pending={pending} status={status} canRetry={canRetry} onRetry={() => void retry()} variant="secondary" />
     </form>
   );
 }

@@ -1,7 +1,6 @@
 'use client';
 // Recording a cold oil check in the person's units, with the level corrected to 15 °C shown as they type.
 import { useState } from 'react';
-import { Button } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
 import { correctedLevelL, correctionFraction } from '@/lib/oil/level';
 import { localIsoMinutes } from '@/lib/weather/tz';
@@ -9,6 +8,7 @@ import { fromDisplayTemp, fromDisplayVolume, tempLabel, volumeLabel, type TempUn
 import type { OilLog } from '@/lib/views/oil';
 import { fmtLevel, fmtPercent } from './format';
 import { useSubmit } from '@/components/ui/useSubmit';
+import { SubmitRow } from '@/components/ui/SubmitRow';
 
 const EMPTY = { level: '', oilTemp: '', outsideTemp: '', bladesTurned: '', engineHours: '', added: '', notes: '' };
 const num = (s: string) => Number(s.trim().replace(',', '.').replace('\u2212', '-'));
@@ -64,19 +64,7 @@ export function OilCheckForm({ aircraftId, zone, drySump, tempUnit, volumeUnit, 
       <p id="oil-live" className="rounded-lg bg-ice-50 px-3 py-2 text-sm text-ice-900 dark:bg-ice-950 dark:text-ice-100" aria-live="polite">
         {live}
       </p>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending} className="w-full sm:w-auto">
-          {pending ? 'Saving…' : 'Record oil check'}
-        </Button>
-        <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
-          {status}
-        </p>
-        {canRetry ? (
-          <Button type="button" variant="secondary" onClick={() => void retry()} disabled={pending}>
-            Try again
-          </Button>
-        ) : null}
-      </div>
+      <SubmitRow label="Record oil check" pending={pending} status={status} canRetry={canRetry} onRetry={() => void retry()} className="w-full sm:w-auto" />
     </form>
   );
 }
