@@ -36,7 +36,8 @@ describe('/api/health', () => {
     expect(r.body.database.dialect).toBe(process.env.TEST_DATABASE_URL ? 'postgres' : 'sqlite');
     // Tests run with THAWLINE_JOBS=off: this instance runs no jobs, and every job is listed.
     expect(r.body.jobs).toMatchObject({ enabled: false, thisInstance: 'off' });
-    expect(r.body.jobs.each.map((j: { name: string }) => j.name).sort()).toEqual(['alert-evaluation', 'cold-night-notice', 'forecast-refresh', 'mail-delivery', 'plan-recompute', 'relay-dispatch']);
+    const { JOBS } = await import('@/lib/jobs/definitions');
+    expect(r.body.jobs.each.map((j: { name: string }) => j.name).sort()).toEqual(JOBS.map((j) => j.name).sort());
     expect(r.body.fakes.forecast).toMatchObject({ local: true });
     expect(r.body.fakes.mail).toMatchObject({ local: true, capture: { state: 'off' } });
     expect(r.body.fakes.mqtt).toMatchObject({ local: true, broker: { state: 'off' } });
