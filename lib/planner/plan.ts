@@ -284,8 +284,12 @@ function finerSwitchOn(p: Problem, on: Uint8Array, need: number, stepMs: number)
   return best;
 }
 
-/** Plans the heat for one departure. Throws PlanInputError (naming the field) for requests it cannot plan. */
-export function planDeparture(req: PlanRequest): PlanResult {
+/**
+ * Plans the heat for one departure, judged at the departure instant only (the start window on top is
+ * lib/planner/hold.ts, which every caller goes through as planDeparture). Throws PlanInputError
+ * (naming the field) for requests it cannot plan.
+ */
+export function planAtDeparture(req: PlanRequest): PlanResult {
   validate(req);
   const model = req.model;
   const T = req.departureMs;

@@ -57,6 +57,25 @@ export interface PlanRequest {
   targetProbability?: number;
   /** Branch-and-bound node limit for the slot choice (default 200 000). */
   maxNodes?: number;
+  /**
+   * The start window, minutes (default 0: judged at the departure instant only). The oil (and the
+   * engine mass, with engineReadyC) must stay at or above ready from departure through the hold, and
+   * the heater stays on through it: nobody starts at the booked minute (walk-round, oil check).
+   */
+  holdMinutes?: number;
+  /** The engine-mass threshold (two-node models only): readiness needs it too, over the whole window. */
+  engineReadyC?: number;
+}
+
+/** The start window as planned: lowest temperatures over [departure, until], re-simulated. */
+export interface HoldReport {
+  untilMs: number;
+  minOilC: number;
+  minEngineC?: number;
+  /** Both thresholds held at every instant of the window. */
+  met: boolean;
+  /** The heater is kept on from departure to untilMs (false when no heat is needed at all). */
+  heaterOn: boolean;
 }
 
 export interface Interval {
@@ -158,6 +177,8 @@ export interface PlanResult {
   probabilityReady: number;
   uncertainty: Uncertainty;
   optimality?: Optimality;
+  /** With a start window (holdMinutes > 0) or an engine-mass threshold. */
+  hold?: HoldReport;
 }
 
 /** A request the planner cannot work with; `field` names the request field (dotted path). */
