@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-export type MailKind = 'oil-too-cold' | 'switch-on' | 'cold-night' | 'invite' | 'reset';
+export type MailKind = 'oil-too-cold' | 'switch-on' | 'cold-night' | 'invite' | 'reset' | 'address-in-use';
 export type OutboxStatus = 'pending' | 'sending' | 'sent' | 'failed' | 'expired' | 'cancelled';
 
 /**

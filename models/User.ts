@@ -12,6 +12,12 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare active: CreationOptional<boolean>;
   /** Set when a manager gave a temporary password: the user is asked to choose their own. */
   declare mustChangePassword: CreationOptional<boolean>;
+  /**
+   * Signed sessions carry the version they were issued with; one that differs is refused. Raised by the
+   * beforeSave hook below whenever the password, the role or the active flag changes, and on sign-out
+   * (lib/auth/options.ts). Bulk User.update calls bypass the hook: change those fields through save().
+   */
+  declare sessionVersion: CreationOptional<number>;
   declare tempUnit: CreationOptional<'C' | 'F'>;
   declare volumeUnit: CreationOptional<'L' | 'qt'>;
   declare createdAt: CreationOptional<Date>;
@@ -29,11 +35,24 @@ export function initUser(sequelize: Sequelize) {
       passwordHash: { type: DataTypes.STRING(100), allowNull: false },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
       mustChangePassword: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+      sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       tempUnit: { type: DataTypes.STRING(1), allowNull: false, defaultValue: 'C' },
       volumeUnit: { type: DataTypes.STRING(2), allowNull: false, defaultValue: 'L' },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, modelName: 'User', tableName: 'users' },
+    {
+      sequelize,
+      modelName: 'User',
+      tableName: 'users',
+      hooks: {
+        // Every session of this user ends when what it stood for changes.
+        beforeSave(user) {
+          if (!user.isNewRecord && (user.changed('passwordHash') || user.changed('role') || user.changed('active'))) {
+            user.sessionVersion = (user.sessionVersion ?? 0) + 1;
+          }
+        },
+      },
+    },
   );
 }

@@ -23,6 +23,7 @@ import { Token, initToken } from './Token';
 import { Lease, initLease } from './Lease';
 import { CapturedMail, initCapturedMail } from './CapturedMail';
 import { migrations } from './migrations';
+import { guardWrites } from './transaction';
 
 export { Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
 export { Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail };
@@ -33,6 +34,7 @@ const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
 /** Defines every model and association on the shared instance (once per process). */
 export function db() {
   const sequelize = getSequelize();
+  guardWrites(sequelize);
   if (!g.__thawlineModelsReady || !Organization.sequelize || Organization.sequelize !== sequelize) {
     initOrganization(sequelize);
     initUser(sequelize);

@@ -1,8 +1,15 @@
 // Run by npm start and npm run dev: migrate, then seed the demo when the database has no organization yet.
 import { migrate, closeSequelize, db } from '@/models';
+import fs from 'node:fs';
 import { seedDemo } from '@/lib/seed/demo';
+import { env, SECRET_FILE } from '@/lib/env';
 
 async function main() {
+  // Parse the environment first (a bad variable stops here, named); without NEXTAUTH_SECRET this writes
+  // the generated secret that the server started next will read.
+  const hadSecretFile = fs.existsSync(SECRET_FILE);
+  env();
+  if (!process.env.NEXTAUTH_SECRET && !hadSecretFile) console.log(`[thawline] NEXTAUTH_SECRET not set: generated a random one in ${SECRET_FILE}`);
   const applied = await migrate();
   if (applied.length) console.log(`[thawline] migrations applied: ${applied.join(', ')}`);
   const { Organization } = db();

@@ -4,7 +4,7 @@ import 'next-auth/jwt';
 
 declare module 'next-auth' {
   interface Session {
-    user: { id: number; role: Role; orgId: number; name?: string | null; email?: string | null };
+    user: { id: number; role: Role; orgId: number; sessionVersion: number; name?: string | null; email?: string | null };
   }
 }
 
@@ -13,5 +13,7 @@ declare module 'next-auth/jwt' {
     uid: number;
     role: Role;
     orgId: number;
+    /** The user's session version at sign-in (users.sessionVersion); a mismatch ends the session. */
+    sv: number;
   }
 }

@@ -213,7 +213,7 @@ export function AircraftForm({
       setFields({});
       setThermalState('kept');
       if (!editing) {
-        router.push(`/aircraft/${r.data.aircraft.id}?added=1`);
+        router.push(`/aircraft/${r.data.aircraft.id}?added=1&tab=profile`);
         return;
       }
       setMessage({ tone: 'info', text: `Saved ${r.data.aircraft.registration}.` });

@@ -5,14 +5,21 @@ import { Notice } from '@/components/ui/primitives';
 export interface FormResult {
   tone: 'info' | 'caution';
   text: string;
+  /** The request failed on the way or on the server (not the input): offer to send it again. */
+  retry?: boolean;
 }
+
+/** A failure worth retrying as it is: no connection, the server's own trouble, or too many requests. */
+export const retryable = (status: number) => status === 0 || status === 429 || status >= 500;
 
 export function ResultNotice({
   result,
   okTitle,
   failTitle,
   errors = [],
+  onRetry,
 }: {
+  onRetry?: () => void;
   result: FormResult | null;
   okTitle?: string;
   failTitle: string;
@@ -43,6 +50,11 @@ export function ResultNotice({
                 </li>
               ))}
             </ul>
+          ) : null}
+          {result.tone !== 'info' && result.retry && onRetry ? (
+            <button type="button" onClick={onRetry} className="mt-2 inline-flex min-h-11 items-center rounded-lg border border-current px-4 text-sm font-semibold">
+              Try again
+            </button>
           ) : null}
         </Notice>
       ) : null}

@@ -6,6 +6,7 @@ import { useMemo, useState } from 'react';
 import { Button, ButtonLink, Card } from '@/components/ui/primitives';
 import { SelectField, TextField, inputClass } from '@/components/ui/Field';
 import { LocationPickerLazy } from '@/components/map/SiteMapLazy';
+import type { Landmark } from '@/components/map/LocationPicker';
 import { sendJson } from '@/lib/client/fetcher';
 import { canonicalTimeZone, formatTime, formatUtcOffset } from '@/lib/time';
 import { airfieldCreateSchema, airfieldUpdateSchema, SHELTER_KIND_LABEL, SHELTER_KINDS, type ShelterKind } from '@/lib/validation/airfields';
@@ -20,6 +21,7 @@ interface Props {
   tileUrl: string;
   tileAttribution: string;
   fallbackCenter?: [number, number];
+  landmarks?: Landmark[];
 }
 
 interface ShelterDraft {
@@ -33,7 +35,7 @@ const num = (s: string): number | null => {
   return s.trim() !== '' && Number.isFinite(v) ? v : null;
 };
 
-export function AirfieldForm({ mode, airfield, timeZones, defaultTimeZone, tileUrl, tileAttribution, fallbackCenter }: Props) {
+export function AirfieldForm({ mode, airfield, timeZones, defaultTimeZone, tileUrl, tileAttribution, fallbackCenter, landmarks = [] }: Props) {
   const router = useRouter();
   const [form, setForm] = useState({
     name: airfield?.name ?? '',
@@ -122,7 +124,12 @@ export function AirfieldForm({ mode, airfield, timeZones, defaultTimeZone, tileU
       <Card aria-labelledby="af-pos-h" className="space-y-4">
         <h2 id="af-pos-h" className="text-base font-semibold text-slate-900 dark:text-white">Position</h2>
         <div className="grid grid-cols-2 gap-4">
-          <TextField id="af-lat" name="latitude" label="Latitude (°)" inputMode="decimal" value={form.latitude} onChange={set('latitude')} error={errors.latitude} hint="North positive, −90 to 90." />
+          <TextField id="af-lat" name="latitude" label="Latitude (°)" inputMode="decimal" value={form.latitude} onChange={(e) => {
+            // "61.52, 24.07" pasted or typed into Latitude fills both boxes.
+            const m = /^\s*(-?\d+(?:\.\d+)?)\s*[,;\s]\s*(-?\d+(?:\.\d+)?)\s*$/.exec(e.target.value.replace(/\u2212/g, '-'));
+            if (m) setForm((f) => ({ ...f, latitude: m[1], longitude: m[2] }));
+            else set('latitude')(e);
+          }} error={errors.latitude} hint="North positive, −90 to 90." />
           <TextField id="af-lon" name="longitude" label="Longitude (°)" inputMode="decimal" value={form.longitude} onChange={set('longitude')} error={errors.longitude} hint="East positive, −180 to 180." />
         </div>
         <div>
@@ -135,9 +142,12 @@ export function AirfieldForm({ mode, airfield, timeZones, defaultTimeZone, tileU
               tileUrl={tileUrl}
               tileAttribution={tileAttribution}
               fallbackCenter={fallbackCenter}
+              landmarks={landmarks.filter((l) => l.id !== airfield?.id)}
             />
           </div>
-          <p className="mt-1.5 text-xs text-slate-500 dark:text-slate-400">Tap or click to place the crosshair; drag it to adjust.</p>
+          <p className="mt-1.5 text-xs text-slate-500 dark:text-slate-400">
+            Tap or click to place the crosshair; drag it to adjust. Your other airfields are named on the map. You can also paste “latitude, longitude” into the Latitude box.
+          </p>
         </div>
       </Card>
 

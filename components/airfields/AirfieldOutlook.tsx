@@ -304,7 +304,7 @@ function ShelterTable({ airfield, unit, canEdit, colours, lowByShelter }: { airf
           <tr>
             <SortHeader col="name" label="Shelter" sort={sort} onSort={toggle} className="pl-3" />
             <SortHeader col="kind" label="Kind" sort={sort} onSort={toggle} className="hidden sm:table-cell" />
-            <SortHeader col="tau" label="Lag" sort={sort} onSort={toggle} align="right" className="hidden sm:table-cell" />
+            <SortHeader col="tau" label="Cools over" sort={sort} onSort={toggle} align="right" className="hidden sm:table-cell" />
             <SortHeader col="aircraft" label="Aircraft" sort={sort} onSort={toggle} align="right" />
             <SortHeader col="low" label="Air low tonight" sort={sort} onSort={toggle} align="right" />
             {canEdit ? <th scope="col" className="hidden px-3 py-3 sm:table-cell"><span className="sr-only">Actions</span></th> : null}
@@ -321,7 +321,12 @@ function ShelterTable({ airfield, unit, canEdit, colours, lowByShelter }: { airf
                     <p className="text-xs text-slate-500 sm:hidden">{SHELTER_KIND_LABEL[s.kind]}</p>
                     {s.kind === 'heated-hangar' && s.setpointC !== null ? (
                       <p className="text-xs text-ember-700 dark:text-ember-300">
-                        Holds {formatTemp(s.setpointC, unit, 0)} with {formatNumber((s.heatingPowerW ?? 0) / 1000)} kW
+                        Heated to {formatTemp(s.setpointC, unit, 0)} with {formatNumber((s.heatingPowerW ?? 0) / 1000)} kW
+                        {(() => {
+                          // Say so when tonight's curve sags below the setting: the heating cannot hold it.
+                          const low = lowByShelter.get(s.id);
+                          return low !== null && low !== undefined && low < s.setpointC - 0.5 ? `; too weak tonight, down to ${formatTemp(low, unit, 0)}` : '';
+                        })()}
                       </p>
                     ) : null}
                     {canEdit ? <div className="-ml-3 mt-1 flex flex-wrap sm:hidden"><ShelterActions airfieldId={airfield.id} s={s} /></div> : null}
@@ -334,7 +339,7 @@ function ShelterTable({ airfield, unit, canEdit, colours, lowByShelter }: { airf
                   {SHELTER_KIND_LABEL[s.kind]}
                 </span>
               </td>
-              <td className="hidden px-4 py-3 text-right tabular-nums sm:table-cell" title="Time constant of the shelter air">{s.timeConstantH === null ? '—' : `${formatNumber(s.timeConstantH)} h`}</td>
+              <td className="hidden px-4 py-3 text-right tabular-nums sm:table-cell" title="How quickly the shelter air follows the outside: about two-thirds of a change outside reaches the air in this time (its time constant)">{s.timeConstantH === null ? '—' : `${formatNumber(s.timeConstantH)} h`}</td>
               <td className="px-4 py-3 text-right tabular-nums">{s.aircraftCount}</td>
               <td className="px-4 py-3 text-right font-semibold tabular-nums text-slate-900 dark:text-white">{formatTemp(lowByShelter.get(s.id), unit)}</td>
               {canEdit ? (

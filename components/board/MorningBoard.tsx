@@ -6,8 +6,10 @@ import { Button, Card, EmptyState, Notice } from '@/components/ui/primitives';
 import { fetcher } from '@/lib/client/fetcher';
 import { formatDay, formatTime } from '@/lib/time';
 import type { PlanView, Readiness } from '@/lib/data/plans';
-import { ReadinessBadge } from './ReadinessBadge';
+import { HeaterStateBadge, ReadinessBadge } from './ReadinessBadge';
+import { heaterStateAt, whenLabel } from '@/lib/plans/state';
 import { PlanDetail } from './PlanDetail';
+import { FrostNote } from './FrostNote';
 
 export interface BoardData {
   generatedAt: string;
@@ -37,6 +39,8 @@ export function MorningBoard({ initial, units, canConfirm }: { initial: BoardDat
     groups.set(k, [...(groups.get(k) ?? []), p]);
   }
   const currency = board.plans[0]?.currency ?? 'EUR';
+  // The board's "now" is the instant its data was made, so every state word agrees with the plans shown.
+  const nowMs = Date.parse(board.generatedAt);
   if (!board.plans.length) {
     return (
       <EmptyState title="No departures for the next morning">
@@ -86,7 +90,7 @@ export function MorningBoard({ initial, units, canConfirm }: { initial: BoardDat
                 const zone = p.airfield?.timeZone ?? 'UTC';
                 const expanded = open === p.departureId;
                 return (
-                  <BoardRow key={p.departureId} p={p} zone={zone} units={units} expanded={expanded} onToggle={() => setOpen(expanded ? null : p.departureId)} canConfirm={canConfirm} onConfirmed={() => mutate()} />
+                  <BoardRow key={p.departureId} p={p} zone={zone} units={units} nowMs={nowMs} expanded={expanded} onToggle={() => setOpen(expanded ? null : p.departureId)} canConfirm={canConfirm} onConfirmed={() => mutate()} />
                 );
               })}
             </tbody>
@@ -100,23 +104,27 @@ export function MorningBoard({ initial, units, canConfirm }: { initial: BoardDat
   );
 }
 
-function BoardRow({ p, zone, units, expanded, onToggle, canConfirm, onConfirmed }: { p: PlanView; zone: string; units: 'C' | 'F'; expanded: boolean; onToggle: () => void; canConfirm: boolean; onConfirmed: () => void }) {
+function BoardRow({ p, zone, units, nowMs, expanded, onToggle, canConfirm, onConfirmed }: { p: PlanView; zone: string; units: 'C' | 'F'; nowMs: number; expanded: boolean; onToggle: () => void; canConfirm: boolean; onConfirmed: () => void }) {
   const dep = Date.parse(p.departAt);
   const on = p.switchOnAt ? Date.parse(p.switchOnAt) : null;
   const short = p.status === 'short' || p.status === 'unplanned';
+  const state = heaterStateAt(p, nowMs);
+  const urgent = state === 'switch-on-now' || state === 'heating';
   return (
     <>
       <tr className={`align-top ${short ? 'bg-red-50/60 dark:bg-red-950/30' : ''}`}>
-        <td className="px-4 py-3 md:w-28">
+        <td className="px-4 py-3 md:w-32">
           <button type="button" onClick={onToggle} aria-expanded={expanded} aria-controls={`plan-${p.departureId}`} className="text-left">
-            <span className="block text-xl font-semibold tabular-nums text-ember-700 dark:text-ember-300">{on !== null ? formatTime(on, zone) : '—'}</span>
+            <span className={`block whitespace-nowrap text-xl font-semibold tabular-nums ${urgent ? 'text-ember-700 dark:text-ember-300' : 'text-slate-900 dark:text-white'}`}>
+              {state === 'switch-on-now' ? 'Now' : on !== null ? whenLabel(on, zone, nowMs) : '—'}
+            </span>
             <span className="block text-xs text-slate-500">{on !== null ? (p.heater ? `${p.heater.kindLabel}, ${CONTROL[p.heater.control] ?? p.heater.control}` : '') : p.heater ? 'no heat needed' : 'no heater'}</span>
           </button>
           {/* Phone: the rest of the row under the time. */}
           <div className="mt-2 space-y-1 md:hidden">
             <div className="font-semibold text-slate-900 dark:text-white">{p.aircraft.registration} <span className="font-normal text-slate-500">{p.shelter?.name}</span></div>
-            <div className="text-sm">Departs {formatTime(dep, zone)} · oil {formatTemp(p.oilAtDepartureC, units, 0)} (ready {formatTemp(p.readyC, units, 0)})</div>
-            <div className="flex items-center gap-2"><ReadinessBadge status={p.status} /> <span className="text-xs text-slate-600">{pct(p.probabilityReady)} chance</span></div>
+            <div className="text-sm">Departs {whenLabel(dep, zone, nowMs)} · oil {formatTemp(p.oilAtDepartureC, units, 0)} (ready {formatTemp(p.readyC, units, 0)})</div>
+            <div className="flex flex-wrap items-center gap-2"><HeaterStateBadge state={state} /> <span className="text-xs text-slate-600">{pct(p.probabilityReady)} chance</span> <FrostNote plan={p} compact /></div>
           </div>
         </td>
         <td className="hidden px-4 py-3 md:table-cell">
@@ -134,7 +142,10 @@ function BoardRow({ p, zone, units, expanded, onToggle, canConfirm, onConfirmed 
         </td>
         <td className="hidden px-4 py-3 tabular-nums md:table-cell">{pct(p.probabilityReady)}</td>
         <td className="hidden px-4 py-3 md:table-cell">
-          <ReadinessBadge status={p.status} />
+          <div className="flex flex-wrap gap-1.5">
+            <HeaterStateBadge state={state} />
+            <FrostNote plan={p} compact />
+          </div>
           <div className="mt-1 text-xs text-slate-500">{p.summary}</div>
           {p.confirmed ? <div className="mt-1 text-xs text-teal-700 dark:text-teal-300">Confirmed by {p.confirmed.by}</div> : null}
         </td>

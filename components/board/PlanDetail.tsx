@@ -8,6 +8,13 @@ import { formatDayTime, formatTime } from '@/lib/time';
 import type { PlanView } from '@/lib/data/plans';
 import { ConfirmButton, money, pct } from './MorningBoard';
 import { HeatCautions } from './Cautions';
+import { FrostNote } from './FrostNote';
+import { sameLocalDay } from '@/lib/plans/state';
+
+const hoursText = (ms: number) => {
+  const m = Math.round(ms / 60_000);
+  return m < 60 ? `${m} min` : `${Math.floor(m / 60)} h${m % 60 ? ` ${m % 60} min` : ''}`;
+};
 
 interface Detail {
   plan: PlanView;
@@ -35,7 +42,9 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
             <ul className="mt-1 space-y-0.5 tabular-nums">
               {p.heaterOn.map((b) => (
                 <li key={b.from}>
-                  {formatTime(Date.parse(b.from), zone)}–{formatTime(Date.parse(b.to), zone)}
+                  {/* Each end with its day, so a block over midnight reads as the hours it is. */}
+                  {formatDayTime(Date.parse(b.from), zone)} – {sameLocalDay(Date.parse(b.from), Date.parse(b.to), zone) ? formatTime(Date.parse(b.to), zone) : formatDayTime(Date.parse(b.to), zone)}
+                  <span className="text-slate-500"> ({hoursText(Date.parse(b.to) - Date.parse(b.from))})</span>
                 </li>
               ))}
             </ul>
@@ -57,7 +66,11 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
             {p.baselines.map((b) => (
               <li key={RULE(b)} className="flex justify-between gap-2 tabular-nums">
                 <span>{RULE(b)}{b.meetsReady ? '' : ' (short)'}</span>
-                <span className="text-slate-600 dark:text-slate-400">{b.energyKWh.toFixed(1)} kWh · saves {b.savedKWh.toFixed(1)}</span>
+                <span className="text-slate-600 dark:text-slate-400">
+                  {b.energyKWh.toFixed(1)} kWh
+                  {/* A saving only where the rule also makes the engine ready; a short rule is no alternative. */}
+                  {b.meetsReady ? (b.savedKWh >= 0.05 ? ` · the plan uses ${b.savedKWh.toFixed(1)} kWh less` : ' · about the same as the plan') : ` · oil ${formatTemp(b.oilAtDepartureC, units, 0)}, not ready`}
+                </span>
               </li>
             ))}
           </ul>
@@ -66,7 +79,8 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
       {p.status === 'short' && p.fix ? (
         <Notice tone="danger" title="This departure will not be ready">
           {p.fix.readyAt ? <>With the heater on from now, the oil reaches {formatTemp(p.readyC, units, 0)} at {formatDayTime(Date.parse(p.fix.readyAt), zone)}. </> : null}
-          {p.fix.powerNeededW ? <>To be ready on time it would need about {Math.ceil(p.fix.powerNeededW / 50) * 50} W of heat. </> : null}
+          {/* Only when more power would help: a shortfall of time is not cured by a heater already big enough. */}
+          {p.fix.powerNeededW && (!p.heater || p.fix.powerNeededW > p.heater.powerW) ? <>To be ready on time it would need about {Math.ceil(p.fix.powerNeededW / 50) * 50} W of heat{p.heater ? ` (${Math.round(p.heater.powerW)} W fitted)` : ''}. </> : null}
           Move the departure, move the aircraft into a warmer shelter, or fit a stronger heater.
         </Notice>
       ) : null}
@@ -85,7 +99,8 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
         ) : null}
         <span className="text-xs text-slate-500">Computed {formatDayTime(Date.parse(p.computedAt), zone)}{p.forecast?.stale ? ' · forecast out of date' : ''}</span>
       </div>
-      <HeatCautions />
+      <FrostNote plan={p} />
+      <HeatCautions always />
     </div>
   );
 }

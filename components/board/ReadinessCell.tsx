@@ -1,11 +1,12 @@
 import { formatTemp } from '@/components/airfields/format';
-import { formatDayTime } from '@/lib/time';
+import { heaterLine, heaterStateAt } from '@/lib/plans/state';
 import type { PlanView } from '@/lib/data/plans';
 import { ReadinessBadge } from './ReadinessBadge';
-import { PlanDisclosure } from './PlanDisclosure';
+import Link from 'next/link';
+import { FrostNote } from './FrostNote';
 
 /** A departure's readiness in a list: status, predicted oil at departure, chance, and the switch-on time. */
-export function ReadinessCell({ plan, units, canConfirm = false }: { plan: PlanView; units: 'C' | 'F'; canConfirm?: boolean }) {
+export function ReadinessCell({ plan, units, nowMs }: { plan: PlanView; units: 'C' | 'F'; nowMs: number }) {
   const zone = plan.airfield?.timeZone ?? 'UTC';
   return (
     <div className="space-y-1 text-sm">
@@ -17,8 +18,14 @@ export function ReadinessCell({ plan, units, canConfirm = false }: { plan: PlanV
         Oil at departure <strong className={plan.oilAtDepartureC !== null && plan.oilAtDepartureC < plan.readyC ? 'text-red-700 dark:text-red-300' : ''}>{formatTemp(plan.oilAtDepartureC, units, 0)}</strong>
         <span className="text-slate-500"> · ready {formatTemp(plan.readyC, units, 0)}</span>
       </div>
-      {plan.switchOnAt ? <div className="text-xs text-ember-700 dark:text-ember-300">Heater on {formatDayTime(Date.parse(plan.switchOnAt), zone)}</div> : null}
-      <PlanDisclosure departureId={plan.departureId} units={units} canConfirm={canConfirm} />
+      {plan.switchOnAt ? (
+        <div className={`text-xs ${['switch-on-now', 'heating'].includes(heaterStateAt(plan, nowMs)) ? 'font-semibold text-ember-700 dark:text-ember-300' : 'text-slate-700 dark:text-slate-300'}`}>{heaterLine(plan, zone, nowMs)}</div>
+      ) : null}
+      <FrostNote plan={plan} />
+      {/* The chart needs the page's width: the plan opens on its own page, not inside a table cell. */}
+      <Link href={`/departures/${plan.departureId}/plan`} className="inline-flex min-h-10 items-center text-xs font-semibold text-ice-700 underline-offset-2 hover:underline dark:text-ice-300">
+        Soak forecast and heat plan<span className="sr-only"> of {plan.aircraft.registration}</span>
+      </Link>
     </div>
   );
 }

@@ -2,7 +2,7 @@
 import { useMemo, useState } from 'react';
 import { useSWRConfig } from 'swr';
 import { Button, Card } from '@/components/ui/primitives';
-import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotice';
+import { ResultNotice, retryable, type FormResult } from '@/components/aircraft/ResultNotice';
 import { FieldShell, SelectField, TextField, inputClass } from '@/components/ui/Field';
 import { fmtTemp } from '@/components/aircraft/format';
 import { sendJson } from '@/lib/client/fetcher';
@@ -50,7 +50,7 @@ export function BookingForm({
 }: {
   aircraft: BookableAircraft[];
   /** For roles that book for anyone: who may be named as pilot (the user first). */
-  pilots?: { id: number; name: string }[];
+  pilots?: { id: number; name: string; aircraftIds?: number[] }[];
   selfId: number;
   tempUnit: TempUnit;
   nowMs: number;
@@ -77,6 +77,9 @@ export function BookingForm({
 
   const chosen = aircraft.find((a) => String(a.id) === form.aircraftId);
   const zone = chosen?.airfield.timeZone ?? 'UTC';
+  // A pilot with a list of aircraft who is not on this one's list: a warning, not a refusal (the operator decides).
+  const chosenPilot = pilots?.find((p) => String(p.id) === form.pilotId);
+  const notListed = chosen && chosenPilot?.aircraftIds && !chosenPilot.aircraftIds.includes(chosen.id) ? { pilot: chosenPilot.name, registration: chosen.registration } : null;
   const groups = useMemo(() => {
     const m = new Map<number, { name: string; items: BookableAircraft[] }>();
     for (const a of aircraft) {
@@ -87,8 +90,8 @@ export function BookingForm({
     return [...m.values()].sort((x, y) => x.name.localeCompare(y.name));
   }, [aircraft]);
 
-  async function onSubmit(e: React.FormEvent) {
-    e.preventDefault();
+  async function onSubmit(e?: React.FormEvent) {
+    e?.preventDefault();
     setPending(true);
     setResult(null);
     const body = {
@@ -109,7 +112,7 @@ export function BookingForm({
       await mutate((key) => typeof key === 'string' && key.startsWith(DEPARTURES_KEY));
     } else {
       setFields(r.fields);
-      setResult({ tone: 'caution', text: r.message });
+      setResult({ tone: 'caution', text: r.message, retry: retryable(r.status) });
     }
   }
 
@@ -137,13 +140,20 @@ export function BookingForm({
         </SelectField>
 
         {pilots ? (
-          <SelectField id="dep-pilotId" name="pilotId" label="Pilot" value={form.pilotId} onChange={set('pilotId')} error={fields.pilotId}>
-            {pilots.map((p) => (
-              <option key={p.id} value={p.id}>
-                {p.id === selfId ? `${p.name} (you)` : p.name}
-              </option>
-            ))}
-          </SelectField>
+          <div>
+            <SelectField id="dep-pilotId" name="pilotId" label="Pilot" value={form.pilotId} onChange={set('pilotId')} error={fields.pilotId}>
+              {pilots.map((p) => (
+                <option key={p.id} value={p.id}>
+                  {p.id === selfId ? `${p.name} (you)` : p.name}
+                </option>
+              ))}
+            </SelectField>
+            {notListed ? (
+              <p id="dep-pilot-warning" role="status" className="mt-1.5 rounded-lg bg-amber-50 px-3 py-2 text-sm text-amber-900 ring-1 ring-inset ring-amber-600/30 dark:bg-amber-950 dark:text-amber-100">
+                {notListed.pilot} is not listed as a pilot of {notListed.registration}. Check that they may fly it before you book; the aircraft&apos;s page lists its pilots.
+              </p>
+            ) : null}
+          </div>
         ) : null}
 
         <fieldset aria-describedby={`dep-when-hint${fields.departAt ? ' dep-departAt-error' : ''}`}>
@@ -216,7 +226,7 @@ export function BookingForm({
         <Button type="submit" disabled={pending || aircraft.length === 0} className="w-full">
           {pending ? 'Booking…' : 'Book departure'}
         </Button>
-        <ResultNotice result={result} okTitle="Booked" failTitle="Not booked" errors={fieldErrors.map(([f, m]) => ({ key: f, label: LABEL[f] ?? f, message: m }))} />
+        <ResultNotice onRetry={() => void onSubmit()} result={result} okTitle="Booked" failTitle="Not booked" errors={fieldErrors.map(([f, m]) => ({ key: f, label: LABEL[f] ?? f, message: m }))} />
       </form>
     </Card>
   );

@@ -133,6 +133,11 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                     {d.notes ? <p className="mt-1 text-sm text-slate-700 dark:text-slate-300">{d.notes}</p> : null}
                     {hasExtra ? <div className="mt-3">{extraOf(d)}</div> : null}
                     {mayCancel(d) ? (
+                      <Link href={`/departures/${d.id}/edit`} className="mt-2 inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-ice-700 hover:bg-ice-50 dark:text-ice-300 dark:hover:bg-slate-800">
+                        Change<span className="sr-only"> {d.aircraft.registration}</span>
+                      </Link>
+                    ) : null}
+                    {mayCancel(d) ? (
                       <button
                         type="button"
                         onClick={() => cancel(d)}
@@ -198,6 +203,12 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                   </td>
                   {hasExtra ? <td className="min-w-[11rem] px-4 py-2.5">{extraOf(d)}</td> : null}
                   <td className="px-3 py-2.5 text-right">
+                    <div className="flex flex-col items-end">
+                    {mayCancel(d) ? (
+                      <Link href={`/departures/${d.id}/edit`} className="inline-flex min-h-10 items-center rounded-lg px-3 text-sm font-semibold text-ice-700 hover:bg-ice-50 dark:text-ice-300 dark:hover:bg-slate-800">
+                        Change<span className="sr-only"> {d.aircraft.registration} {dayLabel(d, nowMs)}</span>
+                      </Link>
+                    ) : null}
                     {mayCancel(d) ? (
                       <button
                         type="button"
@@ -209,6 +220,7 @@ export function DepartureList({ initial, tempUnit, selfId, manageAll, nowMs, ext
                         <span className="sr-only"> {d.aircraft.registration} {dayLabel(d, nowMs)}</span>
                       </button>
                     ) : null}
+                    </div>
                   </td>
                 </tr>
               ))}

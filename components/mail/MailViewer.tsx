@@ -15,6 +15,7 @@ const KIND_LABEL: Record<string, string> = {
   'cold-night': 'Cold-night notice',
   invite: 'Invitation',
   reset: 'Password reset',
+  'address-in-use': 'Account notice',
 };
 const KIND_TONE: Record<string, string> = {
   'oil-too-cold': 'bg-red-50 text-red-800 dark:bg-red-950 dark:text-red-200',
@@ -101,6 +102,11 @@ function Message({ m, zone }: { m: CapturedDetail; zone: string }) {
         <dt className="text-slate-500">Received</dt>
         <dd className="text-slate-800 dark:text-slate-200"><time dateTime={m.receivedAt}>{when(m.receivedAt, zone)}</time> · {(m.sizeBytes / 1024).toFixed(1)} KB</dd>
       </dl>
+      {m.redacted ? (
+        <p className="mt-3 rounded-xl border border-ice-200 bg-ice-50 p-3 text-sm text-slate-800 dark:border-ice-800 dark:bg-slate-900 dark:text-slate-200">
+          Its single-use link is hidden: only the recipient may open it. If an invitation went astray, send a new one from Users.
+        </p>
+      ) : null}
       <div role="tablist" aria-label="How to show the message" className="mt-4 flex gap-1 rounded-xl bg-slate-100 p-1 dark:bg-slate-800">
         {tabs.map(([id, label]) => (
           <button

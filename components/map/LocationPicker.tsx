@@ -4,7 +4,7 @@ import 'leaflet/dist/leaflet.css';
 import './map.css';
 import L from 'leaflet';
 import { useEffect, useMemo } from 'react';
-import { MapContainer, Marker, TileLayer, useMap, useMapEvents } from 'react-leaflet';
+import { CircleMarker, MapContainer, Marker, TileLayer, Tooltip, useMap, useMapEvents } from 'react-leaflet';
 import { OutlineBasemap } from './SiteMap';
 
 interface Props {
@@ -15,6 +15,16 @@ interface Props {
   tileAttribution?: string;
   /** Where to look when no position is set yet (e.g. the organization's other airfields). */
   fallbackCenter?: [number, number];
+  /** The organization's airfields, drawn with their names for orientation. */
+  landmarks?: Landmark[];
+}
+
+export interface Landmark {
+  id: number;
+  name: string;
+  ident: string;
+  latitude: number;
+  longitude: number;
 }
 
 const round = (v: number) => Math.round(v * 1e4) / 1e4;
@@ -33,7 +43,7 @@ function FollowPosition({ pos }: { pos: [number, number] | null }) {
   return null;
 }
 
-export function LocationPicker({ latitude, longitude, onPick, tileUrl, tileAttribution, fallbackCenter = [55, 15] }: Props) {
+export function LocationPicker({ latitude, longitude, onPick, tileUrl, tileAttribution, fallbackCenter = [55, 15], landmarks = [] }: Props) {
   const pos: [number, number] | null =
     latitude !== null && longitude !== null && Math.abs(latitude) <= 90 && Math.abs(longitude) <= 180 ? [latitude, longitude] : null;
   const icon = useMemo(() => L.divIcon({ className: 'tl-mk-icon', html: '<div class="tl-pick"><span></span></div>', iconSize: [32, 32], iconAnchor: [16, 16] }), []);
@@ -43,6 +53,13 @@ export function LocationPicker({ latitude, longitude, onPick, tileUrl, tileAttri
       {tileUrl ? <TileLayer url={tileUrl} attribution={tileAttribution || undefined} /> : null}
       <ClickToPick onPick={onPick} />
       <FollowPosition pos={pos} />
+      {landmarks.map((l) => (
+        <CircleMarker key={l.id} center={[l.latitude, l.longitude]} radius={5} pathOptions={{ color: '#1e4e6b', weight: 2, fillColor: '#fff', fillOpacity: 1 }} interactive={false}>
+          <Tooltip permanent direction="right" offset={[6, 0]} className="tl-landmark">
+            {l.name} ({l.ident})
+          </Tooltip>
+        </CircleMarker>
+      ))}
       {pos ? (
         <Marker
           position={pos}

@@ -61,7 +61,7 @@ function FitToAirfields({ airfields }: { airfields: MapAirfield[] }) {
 }
 
 function AirfieldMarker({ a, unit }: { a: MapAirfield; unit: TempUnit }) {
-  const content = { ident: a.ident, lowC: a.lowC, unit, readiness: a.readiness, stale: a.forecastStatus !== 'fresh' };
+  const content = { ident: a.ident, name: a.name, lowC: a.lowC, unit, readiness: a.readiness, stale: a.forecastStatus !== 'fresh' };
   const html = markerHtml(content);
   const icon = useMemo(() => L.divIcon({ className: 'tl-mk-icon', html, iconSize: [24, 24], iconAnchor: [12, 12], popupAnchor: [0, -44] }), [html]);
   const title = markerTitle(a.name, content);

@@ -4,19 +4,13 @@
 import type { TempUnit } from '@/components/airfields/format';
 import { formatTempShort } from '@/components/airfields/format';
 
-export const READINESS = ['ready', 'warming', 'short', 'unplanned'] as const;
-export type Readiness = (typeof READINESS)[number];
-
-/** Label, glyph and CSS modifier of each readiness state (the glyph keeps it readable without colour). */
-export const READINESS_STYLE: Record<Readiness, { label: string; glyph: string; hint: string }> = {
-  ready: { label: 'Ready', glyph: '✓', hint: 'every aircraft will be warm enough' },
-  warming: { label: 'Warming', glyph: '▲', hint: 'a heat plan is running, on track' },
-  short: { label: 'Short', glyph: '!', hint: 'a plan cannot reach the ready temperature in time' },
-  unplanned: { label: 'Unplanned', glyph: '?', hint: 'needs heat, no plan yet' },
-};
+import { READINESS, READINESS_STYLE, type Readiness } from '@/lib/plans/state';
+export { READINESS, READINESS_STYLE, type Readiness };
 
 export interface MarkerContent {
   ident: string;
+  /** The field's name, shown under its identifier (codes alone mean little to a visitor). */
+  name?: string;
   lowC: number | null;
   unit: TempUnit;
   readiness?: Readiness;
@@ -45,7 +39,7 @@ export function markerHtml(m: MarkerContent): string {
     .join(' ');
   return (
     `<div class="${classes}">` +
-    `<div class="tl-mk-tag">${glyph}<span class="tl-mk-ident">${escapeHtml(m.ident)}</span><span class="tl-mk-low">${low}</span></div>` +
+    `<div class="tl-mk-tag">${glyph}<span class="tl-mk-names"><span class="tl-mk-ident">${escapeHtml(m.ident)}</span>${m.name ? `<span class="tl-mk-name">${escapeHtml(m.name)}</span>` : ''}</span><span class="tl-mk-low">${low}</span></div>` +
     `<div class="tl-mk-stem"></div><div class="tl-mk-dot"></div>` +
     `</div>`
   );

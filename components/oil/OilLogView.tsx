@@ -19,6 +19,9 @@ import { OilCheckForm } from './OilCheckForm';
 import { IntervalForm, OilChangeForm } from './OilChangeForm';
 import { fmtHours, fmtLevel, fmtRate } from './format';
 
+/** The newest checks shown at first; the rest behind a button (no hidden scroll box). */
+const CHECKS_SHOWN = 8;
+
 interface Props {
   choices: OilAircraftChoice[];
   selectedId: number | null;
@@ -38,6 +41,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
   const [id, setId] = useState(selectedId);
   const { data, mutate } = useSWR<OilLog>(id ? `/api/aircraft/${id}/oil` : null, fetcher, { fallbackData: id === selectedId && initial ? initial : undefined });
   const [status, setStatus] = useState('');
+  const [allChecks, setAllChecks] = useState(false);
 
   if (!choices.length || !id) return <EmptyState title="No aircraft yet">The Oil log opens once the organization has an aircraft profile.</EmptyState>;
 
@@ -172,7 +176,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
                 {status}
               </p>
             </div>
-            <div className="relative mt-3 max-h-[32rem] overflow-auto">
+            <div className="relative mt-3 overflow-x-auto">
               <table className="w-full text-left text-sm">
                 <caption className="sr-only">Oil checks of {log.aircraft.registration}, newest first</caption>
                 <thead className="sticky top-0 bg-slate-50 text-xs uppercase tracking-wide text-slate-600 dark:bg-slate-800 dark:text-slate-400">
@@ -188,7 +192,7 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
                   </tr>
                 </thead>
                 <tbody className="divide-y divide-slate-200 dark:divide-slate-800">
-                  {log.checks.map((k) => (
+                  {(allChecks ? log.checks : log.checks.slice(0, CHECKS_SHOWN)).map((k) => (
                     <tr key={k.id} className="align-top">
                       <td className="py-2 pl-4 pr-2">
                         <span className="whitespace-nowrap">{formatDay(Date.parse(k.checkedAt), zone)}</span>
@@ -223,6 +227,13 @@ export function OilLogView({ choices, selectedId, initial, me }: Props) {
                 </tbody>
               </table>
               {!log.checks.length ? <p className="px-4 pb-4 text-sm text-slate-600 dark:text-slate-400">No oil checks recorded yet.</p> : null}
+              {log.checks.length > CHECKS_SHOWN ? (
+                <div className="border-t border-slate-200 px-4 py-3 dark:border-slate-800">
+                  <Button variant="secondary" onClick={() => setAllChecks((v) => !v)} aria-expanded={allChecks}>
+                    {allChecks ? `Show the newest ${CHECKS_SHOWN}` : `Show all ${log.checks.length} checks`}
+                  </Button>
+                </div>
+              ) : null}
             </div>
           </section>
 

@@ -6,7 +6,8 @@ import type { AlertKind } from '@/models/Alert';
 
 export type { AlertKind };
 export type Audience = 'pilot' | 'operator' | 'manager';
-export type Readiness = 'ready' | 'warming' | 'short' | 'unplanned';
+import { READINESS_LABEL, type Readiness } from '@/lib/plans/state';
+export { READINESS_LABEL, type Readiness };
 
 export const ALERT_KIND_LABEL: Record<AlertKind, string> = {
   'oil-too-cold': 'Oil-too-cold warning',
@@ -14,7 +15,6 @@ export const ALERT_KIND_LABEL: Record<AlertKind, string> = {
   'cold-night': 'Cold-night notice',
 };
 
-export const READINESS_LABEL: Record<Readiness, string> = { ready: 'Ready', warming: 'Warming', short: 'Short', unplanned: 'Unplanned' };
 
 interface AirfieldRef {
   id: number;
@@ -38,6 +38,8 @@ export interface OilTooColdData {
   heater: { kindLabel: string; powerW: number; control: string } | null;
   switchOnAt: string | null;
   fix: { readyAt: string | null; powerNeededW: number | null } | null;
+  /** Frost likely on the airframe (outside overnight) before departure. */
+  frost?: boolean;
 }
 
 export interface SwitchOnData {
@@ -52,6 +54,8 @@ export interface SwitchOnData {
   shelter: { name: string; kind: string } | null;
   heater: { kindLabel: string; powerW: number };
   pilot: { id: number; name: string };
+  /** Frost likely on the airframe (outside overnight) before departure. */
+  frost?: boolean;
 }
 
 export interface ColdNightData {
@@ -93,10 +97,6 @@ export function localWhen(iso: string, zone: string): string {
 }
 function shortWhen(iso: string, zone: string): string {
   return formatDayTime(Date.parse(iso), zone);
-}
-function time(iso: string, zone: string): string {
-  const ms = Date.parse(iso);
-  return `${formatTime(ms, zone)} ${zoneLabel(zone, ms)}`;
 }
 const temp = (c: number | null, unit: TempUnit) => (c === null ? 'not known' : formatTemp(c, unit, 0));
 const kwh = (v: number) => `${v.toFixed(v >= 10 ? 0 : 1)} kWh`;
@@ -168,7 +168,7 @@ export function describeOilTooCold(d: OilTooColdData, unit: TempUnit, audience: 
     { label: 'Ready temperature', value: ready },
   ];
   if (d.oilAtDepartureC !== null && d.oilAtDepartureC < d.readyC) {
-    facts.push({ label: 'Short by', value: `${toDisplayDelta(d.readyC - d.oilAtDepartureC, unit).toFixed(0)} ${unit === 'F' ? '°F' : 'K'}` });
+    facts.push({ label: 'Too cold by', value: `${toDisplayDelta(d.readyC - d.oilAtDepartureC, unit).toFixed(0)} °${unit === 'F' ? 'F' : 'C'}` });
   }
   facts.push({ label: 'Heater', value: d.heater ? `${d.heater.kindLabel}, ${Math.round(d.heater.powerW)} W${d.heater.control === 'manual' ? ', switched by hand' : ''}` : 'None fitted' });
   if (d.switchOnAt) facts.push({ label: 'Planned switch-on', value: localWhen(d.switchOnAt, z) });
@@ -179,21 +179,30 @@ export function describeOilTooCold(d: OilTooColdData, unit: TempUnit, audience: 
     title: oilTooColdTitle(d),
     intro: [`${d.aircraft.registration} (${d.aircraft.typeLabel}), ${who} from ${d.airfield.name} on ${when}: the oil is predicted at ${oil} against a ready temperature of ${ready}. ${why}`],
     facts,
-    sections: [{ heading: 'What would fix it', items: oilFixes(d, unit), tone: 'heat' }],
+    sections: [{ heading: 'What would fix it', items: oilFixes(d, unit), tone: 'heat' }, ...(d.frost ? [FROST_SECTION] : [])],
   };
 }
+
+/** Frost on an airframe parked outside: the check before flight, in every message about that departure. */
+const FROST_SECTION: Section = {
+  heading: 'Frost likely on the airframe',
+  items: ['The airframe is forecast below the frost point before departure: check and remove frost before flight.', 'No take-off with frost, ice or snow on wings, tail or propeller.'],
+  tone: 'ice',
+};
 
 // ---------------------------------------------------------------------------------------------
 // Switch-on reminder
 
 export function switchOnTitle(d: SwitchOnData): string {
-  return `Switch on ${possessive(d.aircraft.registration)} ${d.heater.kindLabel.toLowerCase()} at ${formatTime(Date.parse(d.switchOnAt), d.airfield.timeZone)}`;
+  // With its day: a reminder is read later than it is written, and a switch-on is often after midnight.
+  return `Switch on ${possessive(d.aircraft.registration)} ${d.heater.kindLabel.toLowerCase()} at ${formatDayTime(Date.parse(d.switchOnAt), d.airfield.timeZone)}`;
 }
 
 export function describeSwitchOn(d: SwitchOnData, unit: TempUnit, nowMs: number): Described {
   const z = d.airfield.timeZone;
-  const at = time(d.switchOnAt, z);
-  const overdue = nowMs > Date.parse(d.switchOnAt);
+  const at = `${shortWhen(d.switchOnAt, z)} ${zoneLabel(z, Date.parse(d.switchOnAt))}`;
+  // "It was due" only once the minute has passed: a reminder sent ahead never reads as late.
+  const overdue = nowMs >= Date.parse(d.switchOnAt) + 60_000;
   const sections: Section[] = [];
   if (d.status === 'short') {
     sections.push({
@@ -202,6 +211,7 @@ export function describeSwitchOn(d: SwitchOnData, unit: TempUnit, nowMs: number)
       tone: 'heat',
     });
   }
+  if (d.frost) sections.push(FROST_SECTION);
   sections.push({
     heading: 'At the aircraft',
     items: ['Check the heater, its cord and the socket before you switch on; keep the cord clear of fuel, fabric and wheels.', 'Leave the heater running until departure unless the plan says otherwise.'],
@@ -235,9 +245,9 @@ export function coldNightTitle(d: ColdNightData, unit: TempUnit = 'C'): string {
 export function describeColdNight(d: ColdNightData, unit: TempUnit): Described {
   const z = d.timeZone;
   const need = d.aircraft.filter((a) => a.status !== 'ready');
-  const facts: Fact[] = d.airfields.map((a) => ({ label: `${a.name} (${a.ident})`, value: `low ${formatTemp(a.lowC, unit, 0)} at ${time(a.lowAt, z)}`, strong: true }));
+  const facts: Fact[] = d.airfields.map((a) => ({ label: `${a.name} (${a.ident})`, value: `low ${formatTemp(a.lowC, unit, 0)} at ${shortWhen(a.lowAt, z)}`, strong: true }));
   facts.push({ label: 'Threshold', value: formatTemp(d.thresholdC, unit, 0) });
-  facts.push({ label: 'Night', value: `${localWhen(d.night.from, z)} to ${time(d.night.to, z)}` });
+  facts.push({ label: 'Night', value: `${localWhen(d.night.from, z)} to ${localWhen(d.night.to, z)}` });
   const intro = [
     `Tonight's forecast low is below your organization's threshold of ${formatTemp(d.thresholdC, unit, 0)} at ${d.airfields.length === 1 ? d.airfields[0].name : `${d.airfields.length} airfields`}.`,
     need.length

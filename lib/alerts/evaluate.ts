@@ -1,6 +1,8 @@
 // Alert evaluation: reads the heat plans and forecasts (refreshing a forecast older than an hour), writes in-app alerts (one revision per
 // material change) and queues their e-mails in the outbox. Run by the scheduler every 10 minutes
 // (cold-night notices by their own job); safe to run again at any time: nothing is sent twice.
+// Organizations and recipients are evaluated independently: one that fails is logged (ids and error
+// name only), counted in `skipped` and passed over, and the others still get their alerts.
 import { Op } from 'sequelize';
 import { db } from '@/models';
 import type { AlertKind } from '@/models/Alert';
@@ -23,6 +25,8 @@ import {
   type OilTooColdData,
   type SwitchOnData,
 } from './content';
+import { writeTransaction } from '@/models/transaction';
+import { logSkipped } from '@/lib/log';
 
 const MIN = 60_000;
 const HOUR = 60 * MIN;
@@ -43,9 +47,11 @@ export interface EvaluationReport {
   resolved: number;
   queued: number;
   heldForQuietHours: number;
+  /** Alerts (or whole organizations) that failed and were skipped this time; the next run tries again. */
+  skipped: number;
 }
 
-const emptyReport = (): EvaluationReport => ({ created: 0, unchanged: 0, resolved: 0, queued: 0, heldForQuietHours: 0 });
+const emptyReport = (): EvaluationReport => ({ created: 0, unchanged: 0, resolved: 0, queued: 0, heldForQuietHours: 0, skipped: 0 });
 
 interface Recipient {
   user: User;
@@ -94,7 +100,18 @@ export function isMaterialChange(kind: AlertKind, prev: Record<string, unknown>,
 
 /** Writes the alert (a new revision when there is none or the change is material) and queues its e-mail. */
 async function notify(c: Candidate, now: Date, report: EvaluationReport): Promise<void> {
-  const { Alert, sequelize } = db();
+  const before = { ...report };
+  try {
+    await notifyOne(c, now, report);
+  } catch (err) {
+    // One recipient's alert that cannot be written (a bad stored value, a database refusal) is skipped.
+    Object.assign(report, before, { skipped: before.skipped + 1 });
+    logSkipped('alert', { org: c.orgId, user: c.recipient.user.id, kind: c.kind, departure: c.departureId, airfield: c.airfieldId }, err);
+  }
+}
+
+async function notifyOne(c: Candidate, now: Date, report: EvaluationReport): Promise<void> {
+  const { Alert } = db();
   const { user, prefs, audience } = c.recipient;
   const channel = channelFor(prefs, c.kind);
   if (channel === 'off') return;
@@ -113,7 +130,7 @@ async function notify(c: Candidate, now: Date, report: EvaluationReport): Promis
   const revision = (latest?.revision ?? 0) + 1;
   const link = alertLink(c.kind, audience).path;
   try {
-    await sequelize.transaction(async (transaction) => {
+    await writeTransaction(async (transaction) => {
       if (latest && !latest.supersededAt) await latest.update({ supersededAt: now }, { transaction });
       const alert = await Alert.create(
         {
@@ -204,6 +221,7 @@ function oilData(p: PlanView): OilTooColdData {
     heater: p.heater ? { kindLabel: p.heater.kindLabel, powerW: p.heater.powerW, control: p.heater.control } : null,
     switchOnAt: p.switchOnAt,
     fix: p.fix,
+    frost: !!p.frost?.likely,
   };
 }
 
@@ -220,6 +238,7 @@ function switchOnData(p: PlanView): SwitchOnData {
     shelter: p.shelter,
     heater: { kindLabel: p.heater!.kindLabel, powerW: p.heater!.powerW },
     pilot: p.pilot,
+    frost: !!p.frost?.likely,
   };
 }
 
@@ -229,68 +248,78 @@ export async function evaluateAlerts({ now = new Date(), orgIds }: { now?: Date;
   const report = emptyReport();
   const orgs = await Organization.findAll({ where: orgIds ? { id: { [Op.in]: orgIds } } : {}, attributes: ['id'] });
   for (const org of orgs) {
-    const plans = await plansBetween({ orgId: org.id, fromMs: now.getTime(), toMs: now.getTime() + WARNING_HORIZON_MS, now, refresh: 'if-old' });
-    const who = await recipientsOf(org.id);
-    const current = new Set<string>();
-    for (const p of plans) {
-      if (!p.airfield || p.problem) continue;
-      if (p.status === 'short' || p.status === 'unplanned') {
-        const data = oilData(p);
-        const subjectKey = `oil-too-cold:d${p.departureId}`;
-        const pilot = who.one(p.pilot.id, 'pilot');
-        const list = [...(pilot ? [pilot] : []), ...who.withRole('oil-too-cold', 'operator').filter((r) => r.user.id !== p.pilot.id)];
-        for (const r of list) {
-          current.add(`${r.user.id}|${subjectKey}`);
-          await notify(
-            {
-              orgId: org.id,
-              kind: 'oil-too-cold',
-              subjectKey,
-              recipient: r,
-              state: { status: p.status, oilC: data.oilAtDepartureC, departAt: p.departAt, readyC: p.readyC },
-              data,
-              title: oilTooColdTitle(data),
-              departureId: p.departureId,
-              airfieldId: p.airfield.id,
-              expiresAt: new Date(Date.parse(p.departAt)),
-            },
-            now,
-            report,
-          );
-        }
-      }
-      if (p.heater?.control === 'manual' && p.switchOnAt) {
-        const switchOnMs = Date.parse(p.switchOnAt);
-        const subjectKey = `switch-on:d${p.departureId}`;
-        for (const r of who.withRole('switch-on', 'operator')) {
-          const lead = r.prefs.reminderLeadMinutes * MIN;
-          const inWindow = now.getTime() >= switchOnMs - lead && now.getTime() < switchOnMs + REMINDER_GRACE_MS;
-          // Keep an open reminder current until its switch-on time has passed.
-          if (now.getTime() < switchOnMs + REMINDER_GRACE_MS) current.add(`${r.user.id}|${subjectKey}`);
-          if (!inWindow) continue;
-          const data = switchOnData(p);
-          await notify(
-            {
-              orgId: org.id,
-              kind: 'switch-on',
-              subjectKey,
-              recipient: r,
-              state: { switchOnMs, departAt: p.departAt },
-              data,
-              title: switchOnTitle(data),
-              departureId: p.departureId,
-              airfieldId: p.airfield.id,
-              expiresAt: new Date(switchOnMs + REMINDER_GRACE_MS),
-            },
-            now,
-            report,
-          );
-        }
-      }
+    try {
+      await evaluateOrganization(org.id, now, report);
+    } catch (err) {
+      report.skipped++;
+      logSkipped('alert evaluation of an organization', { org: org.id }, err);
     }
-    await resolveStale(org.id, ['oil-too-cold', 'switch-on'], current, now, report);
   }
   return report;
+}
+
+async function evaluateOrganization(orgId: number, now: Date, report: EvaluationReport) {
+  const org = { id: orgId };
+  const plans = await plansBetween({ orgId: org.id, fromMs: now.getTime(), toMs: now.getTime() + WARNING_HORIZON_MS, now, refresh: 'if-old' });
+  const who = await recipientsOf(org.id);
+  const current = new Set<string>();
+  for (const p of plans) {
+    if (!p.airfield || p.problem) continue;
+    if (p.status === 'short' || p.status === 'unplanned') {
+      const data = oilData(p);
+      const subjectKey = `oil-too-cold:d${p.departureId}`;
+      const pilot = who.one(p.pilot.id, 'pilot');
+      const list = [...(pilot ? [pilot] : []), ...who.withRole('oil-too-cold', 'operator').filter((r) => r.user.id !== p.pilot.id)];
+      for (const r of list) {
+        current.add(`${r.user.id}|${subjectKey}`);
+        await notify(
+          {
+            orgId: org.id,
+            kind: 'oil-too-cold',
+            subjectKey,
+            recipient: r,
+            state: { status: p.status, oilC: data.oilAtDepartureC, departAt: p.departAt, readyC: p.readyC },
+            data,
+            title: oilTooColdTitle(data),
+            departureId: p.departureId,
+            airfieldId: p.airfield.id,
+            expiresAt: new Date(Date.parse(p.departAt)),
+          },
+          now,
+          report,
+        );
+      }
+    }
+    if (p.heater?.control === 'manual' && p.switchOnAt) {
+      const switchOnMs = Date.parse(p.switchOnAt);
+      const subjectKey = `switch-on:d${p.departureId}`;
+      for (const r of who.withRole('switch-on', 'operator')) {
+        const lead = r.prefs.reminderLeadMinutes * MIN;
+        const inWindow = now.getTime() >= switchOnMs - lead && now.getTime() < switchOnMs + REMINDER_GRACE_MS;
+        // Keep an open reminder current until its switch-on time has passed.
+        if (now.getTime() < switchOnMs + REMINDER_GRACE_MS) current.add(`${r.user.id}|${subjectKey}`);
+        if (!inWindow) continue;
+        const data = switchOnData(p);
+        await notify(
+          {
+            orgId: org.id,
+            kind: 'switch-on',
+            subjectKey,
+            recipient: r,
+            state: { switchOnMs, departAt: p.departAt },
+            data,
+            title: switchOnTitle(data),
+            departureId: p.departureId,
+            airfieldId: p.airfield.id,
+            expiresAt: new Date(switchOnMs + REMINDER_GRACE_MS),
+          },
+          now,
+          report,
+        );
+      }
+    }
+  }
+  await resolveStale(org.id, ['oil-too-cold', 'switch-on'], current, now, report);
 }
 
 /** The instant of the notice time ('HH:MM') on the local date of `ms`, or of the day before. */
@@ -310,56 +339,61 @@ export async function evaluateColdNight({ now = new Date(), orgIds }: { now?: Da
   const report = emptyReport();
   const orgs = await Organization.findAll({ where: orgIds ? { id: { [Op.in]: orgIds } } : {} });
   for (const org of orgs) {
-    const airfields = await Airfield.findAll({ where: { organizationId: org.id, archivedAt: null }, order: [['name', 'ASC']] });
-    const zones = new Map<string, typeof airfields>();
-    for (const a of airfields) zones.set(a.timeZone, [...(zones.get(a.timeZone) ?? []), a]);
-    const who = await recipientsOf(org.id);
-    for (const [zone, afs] of zones) {
-      const noticeMs = noticeInstants(zone, org.coldNightNoticeAt, now.getTime()).find((t) => now.getTime() >= t && now.getTime() < t + NOTICE_WINDOW_MS);
-      if (noticeMs === undefined) continue;
-      const night = tonightWindow(zone, new Date(noticeMs));
-      const lows = await tonightForAirfields({ orgId: org.id, airfieldIds: afs.map((a) => a.id), now: new Date(noticeMs), refresh: 'if-old' });
-      const cold = afs
-        .map((a) => ({ a, low: lows.get(a.id)?.tonight.low ?? null }))
-        .filter((x): x is { a: (typeof afs)[number]; low: { tempC: number; at: string } } => !!x.low && x.low.tempC < org.coldNightThresholdC);
-      if (!cold.length) continue;
-      const coldIds = new Set(cold.map((x) => x.a.id));
-      // The morning after the night: departures until 15:00 local the next day.
-      const next = addDays(night.evening, 1);
-      const plans = (await plansBetween({ orgId: org.id, fromMs: now.getTime(), toMs: zonedTimeToUtc(zone, next.year, next.month, next.day, 15), now, refresh: 'if-old' })).filter(
-        (p) => p.airfield && coldIds.has(p.airfield.id),
-      );
-      const need = plans.filter((p) => p.status !== 'ready');
-      const currency = need.find((p) => p.cost !== null)?.currency ?? plans[0]?.currency ?? 'EUR';
-      const data: ColdNightData = {
-        thresholdC: org.coldNightThresholdC,
-        timeZone: zone,
-        evening: localDateKey(night.evening),
-        night: { from: new Date(night.fromMs).toISOString(), to: new Date(night.toMs).toISOString() },
-        airfields: cold.map((x) => ({ id: x.a.id, name: x.a.name, ident: x.a.ident, lowC: Math.round(x.low.tempC * 10) / 10, lowAt: x.low.at })),
-        aircraft: need.map((p) => ({
-          departureId: p.departureId,
-          registration: p.aircraft.registration,
-          airfield: p.airfield!.name,
-          departAt: p.departAt,
-          status: p.status,
-          switchOnAt: p.switchOnAt,
-          energyKWh: Math.round(p.energyKWh * 100) / 100,
-        })),
-        totals: {
-          energyKWh: Math.round(need.reduce((s, p) => s + p.energyKWh, 0) * 100) / 100,
-          cost: need.some((p) => p.cost !== null) ? Math.round(need.reduce((s, p) => s + (p.cost ?? 0), 0) * 100) / 100 : null,
-          currency,
-        },
-      };
-      const subjectKey = `cold-night:${zone}:${data.evening}`;
-      for (const r of who.withRole('cold-night', 'manager')) {
-        await notify(
-          { orgId: org.id, kind: 'cold-night', subjectKey, recipient: r, state: { evening: data.evening }, data, title: coldNightTitle(data), expiresAt: new Date(night.toMs) },
-          now,
-          report,
+    try {
+      const airfields = await Airfield.findAll({ where: { organizationId: org.id, archivedAt: null }, order: [['name', 'ASC']] });
+      const zones = new Map<string, typeof airfields>();
+      for (const a of airfields) zones.set(a.timeZone, [...(zones.get(a.timeZone) ?? []), a]);
+      const who = await recipientsOf(org.id);
+      for (const [zone, afs] of zones) {
+        const noticeMs = noticeInstants(zone, org.coldNightNoticeAt, now.getTime()).find((t) => now.getTime() >= t && now.getTime() < t + NOTICE_WINDOW_MS);
+        if (noticeMs === undefined) continue;
+        const night = tonightWindow(zone, new Date(noticeMs));
+        const lows = await tonightForAirfields({ orgId: org.id, airfieldIds: afs.map((a) => a.id), now: new Date(noticeMs), refresh: 'if-old' });
+        const cold = afs
+          .map((a) => ({ a, low: lows.get(a.id)?.tonight.low ?? null }))
+          .filter((x): x is { a: (typeof afs)[number]; low: { tempC: number; at: string } } => !!x.low && x.low.tempC < org.coldNightThresholdC);
+        if (!cold.length) continue;
+        const coldIds = new Set(cold.map((x) => x.a.id));
+        // The morning after the night: departures until 15:00 local the next day.
+        const next = addDays(night.evening, 1);
+        const plans = (await plansBetween({ orgId: org.id, fromMs: now.getTime(), toMs: zonedTimeToUtc(zone, next.year, next.month, next.day, 15), now, refresh: 'if-old' })).filter(
+          (p) => p.airfield && coldIds.has(p.airfield.id),
         );
+        const need = plans.filter((p) => p.status !== 'ready');
+        const currency = need.find((p) => p.cost !== null)?.currency ?? plans[0]?.currency ?? 'EUR';
+        const data: ColdNightData = {
+          thresholdC: org.coldNightThresholdC,
+          timeZone: zone,
+          evening: localDateKey(night.evening),
+          night: { from: new Date(night.fromMs).toISOString(), to: new Date(night.toMs).toISOString() },
+          airfields: cold.map((x) => ({ id: x.a.id, name: x.a.name, ident: x.a.ident, lowC: Math.round(x.low.tempC * 10) / 10, lowAt: x.low.at })),
+          aircraft: need.map((p) => ({
+            departureId: p.departureId,
+            registration: p.aircraft.registration,
+            airfield: p.airfield!.name,
+            departAt: p.departAt,
+            status: p.status,
+            switchOnAt: p.switchOnAt,
+            energyKWh: Math.round(p.energyKWh * 100) / 100,
+          })),
+          totals: {
+            energyKWh: Math.round(need.reduce((s, p) => s + p.energyKWh, 0) * 100) / 100,
+            cost: need.some((p) => p.cost !== null) ? Math.round(need.reduce((s, p) => s + (p.cost ?? 0), 0) * 100) / 100 : null,
+            currency,
+          },
+        };
+        const subjectKey = `cold-night:${zone}:${data.evening}`;
+        for (const r of who.withRole('cold-night', 'manager')) {
+          await notify(
+            { orgId: org.id, kind: 'cold-night', subjectKey, recipient: r, state: { evening: data.evening }, data, title: coldNightTitle(data), expiresAt: new Date(night.toMs) },
+            now,
+            report,
+          );
+        }
       }
+    } catch (err) {
+      report.skipped++;
+      logSkipped('cold-night notice of an organization', { org: org.id }, err);
     }
   }
   return report;

@@ -1,4 +1,5 @@
 import { ZodError } from 'zod';
+import { describeError } from '@/lib/log';
 
 // Typed errors thrown anywhere on the server; one mapper turns them into HTTP answers.
 export class AppError extends Error {
@@ -46,6 +47,18 @@ export class TooLarge extends AppError {
   }
 }
 
+export class UnsupportedMediaType extends AppError {
+  constructor(message = 'Send the body as JSON with Content-Type: application/json.') {
+    super(415, 'unsupported_media_type', message);
+  }
+}
+
+export class TooManyRequests extends AppError {
+  constructor(public retryAfterSeconds: number, message = 'Too many attempts from this address. Wait a while, then try again.') {
+    super(429, 'too_many_requests', message);
+  }
+}
+
 /** Field errors from a zod error: the path joined with dots ("engine.nodes.0.lossWPerK"). */
 export function zodFields(err: ZodError): FieldError[] {
   return err.issues.map((i) => ({ field: i.path.map(String).join('.') || '(body)', message: i.message }));
@@ -69,6 +82,7 @@ export function toErrorResponse(err: unknown): { status: number; body: ErrorBody
   if (name === 'SequelizeUniqueConstraintError') {
     return { status: 409, body: { error: 'conflict', message: 'A record with these values already exists.' } };
   }
-  console.error('[thawline] unhandled error', err);
+  // Name and driver code only: a database error carries the statement and its values.
+  console.error(`[thawline] unhandled error: ${describeError(err)}`);
   return { status: 500, body: { error: 'internal', message: 'Something went wrong on our side. Try again in a moment.' } };
 }

@@ -17,14 +17,16 @@ export interface CurrentUser {
 
 /**
  * The signed-in user, re-read from the database on every request so that a deactivation or a role change
- * takes effect at once. Throws Unauthenticated when there is no valid session.
+ * takes effect at once. Throws Unauthenticated when there is no valid session, including a signed one
+ * whose session version is no longer the user's (signed out, password changed or reset, role changed,
+ * deactivated or reactivated since it was issued).
  */
 export async function requireUser(): Promise<CurrentUser> {
   const claims = await readSession();
   if (!claims) throw new Unauthenticated();
   const { User } = db();
   const u = await User.findByPk(claims.userId);
-  if (!u || !u.active || u.organizationId !== claims.orgId) throw new Unauthenticated('Your session has ended. Sign in again.');
+  if (!u || !u.active || u.organizationId !== claims.orgId || claims.sessionVersion !== u.sessionVersion) throw new Unauthenticated('Your session has ended. Sign in again.');
   return {
     id: u.id,
     orgId: u.organizationId,

@@ -8,18 +8,14 @@ import type { User } from '@/models/User';
 import { signInSchema } from '@/lib/validation/auth';
 import { clearFailedSignIns, recordFailedSignIn, signInBlockedFor } from './limiter';
 import type { Role } from './permissions';
+import { clientAddress } from './client-address';
+import { describeError } from '@/lib/log';
 
 // Without NEXTAUTH_URL (the embedded set-up on any port) next-auth takes its origin from the request's host.
 if (!process.env.NEXTAUTH_URL) process.env.AUTH_TRUST_HOST ??= 'true';
 
 // A hash to compare against when no account matches, so both paths take the same time.
 const DUMMY_HASH = '$2b$10$CwTycUXWue0Thq9StjUM0uJ8.RZV9Q1l0g9bSg6a8OpQj3oXGZr7e';
-
-function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const fwd = headers?.['x-forwarded-for'];
-  const first = typeof fwd === 'string' ? fwd.split(',')[0].trim() : '';
-  return first || (typeof headers?.['x-real-ip'] === 'string' ? (headers['x-real-ip'] as string) : 'local');
-}
 
 export const authOptions: NextAuthOptions = {
   secret: env().NEXTAUTH_SECRET,
@@ -41,7 +37,7 @@ export const authOptions: NextAuthOptions = {
           user = await db().User.findOne({ where: { email } });
         } catch (err) {
           // next-auth would put the error's message in the redirect URL: log it here, answer as a failed sign-in.
-          console.error('[thawline] sign-in lookup failed', err);
+          console.error(`[thawline] sign-in lookup failed: ${describeError(err)}`);
           return null;
         }
         const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
@@ -50,22 +46,35 @@ export const authOptions: NextAuthOptions = {
           return null;
         }
         await clearFailedSignIns(email);
-        return { id: String(user.id), email: user.email, name: user.name, role: user.role, orgId: user.organizationId };
+        return { id: String(user.id), email: user.email, name: user.name, role: user.role, orgId: user.organizationId, sv: user.sessionVersion };
       },
     }),
   ],
+  events: {
+    // Signing out ends this session everywhere it was copied: the cookie is only cleared in this browser,
+    // so the version it carries stops being the user's.
+    async signOut({ token }) {
+      if (!token?.uid) return;
+      try {
+        await db().User.increment('sessionVersion', { where: { id: token.uid, sessionVersion: token.sv ?? -1 } });
+      } catch (err) {
+        console.error('[thawline] sign-out could not end the session', err instanceof Error ? err.message : err);
+      }
+    },
+  },
   callbacks: {
     async jwt({ token, user }) {
       if (user) {
-        const u = user as unknown as { id: string; role: Role; orgId: number };
+        const u = user as unknown as { id: string; role: Role; orgId: number; sv: number };
         token.uid = Number(u.id);
         token.role = u.role;
         token.orgId = u.orgId;
+        token.sv = u.sv;
       }
       return token;
     },
     async session({ session, token }) {
-      session.user = { ...session.user, id: token.uid, role: token.role, orgId: token.orgId };
+      session.user = { ...session.user, id: token.uid, role: token.role, orgId: token.orgId, sessionVersion: token.sv };
       return session;
     },
   },

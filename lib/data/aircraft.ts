@@ -20,6 +20,7 @@ import {
   type HeaterKind,
   type ThermalInput,
 } from '@/lib/validation/aircraft';
+import { writeTransaction } from '@/models/transaction';
 
 // Aircraft profiles with their heaters and the pilots who may book them, always scoped to one
 // organization. Another organization's aircraft is "not found": it does not exist for the caller.
@@ -92,6 +93,8 @@ export interface PilotChoice {
   id: number;
   name: string;
   email: string;
+  /** The aircraft this pilot is listed on (the booking form warns when another is chosen). */
+  aircraftIds: number[];
 }
 
 type AircraftWithIncludes = Aircraft & {
@@ -214,7 +217,8 @@ export async function listShelterChoices({ orgId }: { orgId: number }): Promise<
 export async function listPilotChoices({ orgId }: { orgId: number }): Promise<PilotChoice[]> {
   const { User } = db();
   const users = await User.findAll({ where: { organizationId: orgId, role: 'pilot', active: true }, order: [['name', 'ASC']] });
-  return users.map((u) => ({ id: u.id, name: u.name, email: u.email }));
+  const links = users.length ? await AircraftPilot.findAll({ where: { userId: users.map((u) => u.id) } }) : [];
+  return users.map((u) => ({ id: u.id, name: u.name, email: u.email, aircraftIds: links.filter((l) => l.userId === u.id).map((l) => l.aircraftId) }));
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -304,8 +308,8 @@ async function replacePilots({ aircraftId, pilotIds }: { aircraftId: number; pil
 }
 
 export async function createAircraft({ orgId, input, now = new Date() }: { orgId: number; input: AircraftCreate; now?: Date }): Promise<AircraftRecord> {
-  const { sequelize, Aircraft } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { Aircraft } = db();
+  return writeTransaction(async (transaction) => {
     await checkReferences({ orgId, shelterId: input.shelterId, pilotIds: input.pilotIds, lastShutdownAt: input.lastShutdownAt, now }, transaction);
     await checkRegistrationFree({ orgId, registration: input.registration }, transaction);
     const preset = aircraftDefaultsFor(input.engineClass);
@@ -332,8 +336,8 @@ export async function createAircraft({ orgId, input, now = new Date() }: { orgId
 }
 
 export async function updateAircraft({ orgId, aircraftId, patch, now = new Date() }: { orgId: number; aircraftId: number; patch: AircraftUpdate; now?: Date }): Promise<AircraftRecord> {
-  const { sequelize, Aircraft } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { Aircraft } = db();
+  return writeTransaction(async (transaction) => {
     const a = await Aircraft.findOne({ where: { id: aircraftId, organizationId: orgId }, transaction });
     if (!a) throw new NotFound('Aircraft');
     await checkReferences({ orgId, shelterId: patch.shelterId, pilotIds: patch.pilotIds, lastShutdownAt: patch.lastShutdownAt, now }, transaction);
@@ -364,8 +368,8 @@ export async function updateAircraft({ orgId, aircraftId, patch, now = new Date(
 
 /** Archives the aircraft (its history stays) and cancels its departures still to come. */
 export async function archiveAircraft({ orgId, aircraftId, now = new Date() }: { orgId: number; aircraftId: number; now?: Date }) {
-  const { sequelize, Aircraft } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { Aircraft } = db();
+  return writeTransaction(async (transaction) => {
     const a = await Aircraft.findOne({ where: { id: aircraftId, organizationId: orgId }, transaction });
     if (!a) throw new NotFound('Aircraft');
     if (!a.archivedAt) {

@@ -13,6 +13,7 @@ import {
   type ShelterUpdate,
   type ShelterValues,
 } from '@/lib/validation/airfields';
+import { writeTransaction } from '@/models/transaction';
 
 // Airfields and their shelters, always scoped to one organization. Another organization's record
 // is "not found", never "forbidden": it does not exist for the caller.
@@ -160,8 +161,8 @@ async function insertShelter(orgId: number, airfieldId: number, s: ShelterValues
 
 /** A new airfield and its first shelters, in one transaction: all of it is written or none. */
 export async function createAirfield({ orgId, input }: { orgId: number; input: AirfieldCreate }): Promise<AirfieldRow> {
-  const { sequelize, Airfield } = db();
-  const id = await sequelize.transaction(async (transaction) => {
+  const { Airfield } = db();
+  const id = await writeTransaction(async (transaction) => {
     await assertIdentFree(orgId, input.ident, null, transaction);
     const { shelters, ...fields } = input;
     const a = await Airfield.create({ organizationId: orgId, ...fields }, { transaction });
@@ -172,8 +173,8 @@ export async function createAirfield({ orgId, input }: { orgId: number; input: A
 }
 
 export async function updateAirfield({ orgId, airfieldId, patch }: { orgId: number; airfieldId: number; patch: AirfieldUpdate }): Promise<AirfieldRow> {
-  const { sequelize } = db();
-  await sequelize.transaction(async (transaction) => {
+  db();
+  await writeTransaction(async (transaction) => {
     const a = await findAirfield({ orgId, airfieldId, transaction });
     const { archived, ...fields } = patch;
     const willBeActive = archived === undefined ? a.archivedAt == null : !archived;
@@ -192,8 +193,8 @@ export async function updateAirfield({ orgId, airfieldId, patch }: { orgId: numb
  * stays whole), deleted with its shelters and cached forecast otherwise.
  */
 export async function removeAirfield({ orgId, airfieldId }: { orgId: number; airfieldId: number }): Promise<RemoveResult> {
-  const { sequelize, Shelter, Forecast } = db();
-  return sequelize.transaction(async (transaction) => {
+  const { Shelter, Forecast } = db();
+  return writeTransaction(async (transaction) => {
     const a = await findAirfield({ orgId, airfieldId, transaction });
     const shelterIds = (await Shelter.findAll({ attributes: ['id'], where: { airfieldId: a.id }, transaction })).map((s) => s.id);
     const aircraftCount = await aircraftUsing(orgId, shelterIds, transaction);
@@ -233,8 +234,8 @@ async function shelterById(orgId: number, shelterId: number): Promise<ShelterRow
 }
 
 export async function createShelter({ orgId, airfieldId, input }: { orgId: number; airfieldId: number; input: ShelterValues }): Promise<ShelterRow> {
-  const { sequelize } = db();
-  const id = await sequelize.transaction(async (transaction) => {
+  db();
+  const id = await writeTransaction(async (transaction) => {
     const a = await findAirfield({ orgId, airfieldId, transaction });
     if (a.archivedAt) throw new Conflict('This airfield is archived: restore it before adding shelters.');
     return (await insertShelter(orgId, a.id, input, 'name', transaction)).id;
@@ -248,8 +249,8 @@ export async function createShelter({ orgId, airfieldId, input }: { orgId: numbe
  * takes that kind's preset.
  */
 export async function updateShelter({ orgId, airfieldId, shelterId, patch }: { orgId: number; airfieldId: number; shelterId: number; patch: ShelterUpdate }): Promise<ShelterRow> {
-  const { sequelize } = db();
-  await sequelize.transaction(async (transaction) => {
+  db();
+  await writeTransaction(async (transaction) => {
     const s = await findShelter(orgId, airfieldId, shelterId, transaction);
     const { archived, ...change } = patch;
     const kindChanged = change.kind !== undefined && change.kind !== s.kind;
@@ -281,8 +282,8 @@ export async function updateShelter({ orgId, airfieldId, shelterId, patch }: { o
 
 /** Removes a shelter: archived while aircraft are homed in it, deleted otherwise. */
 export async function removeShelter({ orgId, airfieldId, shelterId }: { orgId: number; airfieldId: number; shelterId: number }): Promise<RemoveResult> {
-  const { sequelize } = db();
-  return sequelize.transaction(async (transaction) => {
+  db();
+  return writeTransaction(async (transaction) => {
     const s = await findShelter(orgId, airfieldId, shelterId, transaction);
     const aircraftCount = await aircraftUsing(orgId, [s.id], transaction);
     if (aircraftCount > 0) {

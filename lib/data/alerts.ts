@@ -11,6 +11,7 @@ import type { AlertData, Audience, OilTooColdData } from '@/lib/alerts/content';
 import type { UnsubscribeKind } from '@/lib/mail/links';
 import type { AlertPreferencesInput } from '@/lib/validation/alerts';
 import { updatePreferences as updateUserPreferences } from './users';
+import { writeTransaction } from '@/models/transaction';
 
 // A user's alerts and alert preferences. Alerts belong to one user in one organization: anyone
 // else's is "not found".
@@ -116,9 +117,9 @@ export async function getAlertPreferences({ orgId, userId, role }: { orgId: numb
 
 /** Saves what was sent (the rest stays as it was); the row is written on first save. */
 export async function saveAlertPreferences({ orgId, userId, role, input }: { orgId: number; userId: number; role: Role; input: AlertPreferencesInput }) {
-  const { AlertPreference, sequelize } = db();
+  const { AlertPreference } = db();
   const { tempUnit, ...prefs } = input;
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const current = (await preferencesFor(orgId, [userId])).get(userId)!;
     const next = { ...current, ...Object.fromEntries(Object.entries(prefs).filter(([, v]) => v !== undefined)) };
     const [row] = await AlertPreference.findOrCreate({ where: { userId }, defaults: { userId, organizationId: orgId, ...next }, transaction });

@@ -80,7 +80,7 @@ export async function feedCalendar({ token, now = new Date(), baseUrl }: { token
 }
 
 export function publicBaseUrl(req: Request): string {
-  if (process.env.NEXTAUTH_URL) return env().NEXTAUTH_URL;
+  if (env().NEXTAUTH_URL) return env().NEXTAUTH_URL!;
   const u = new URL(req.url);
   return `${u.protocol}//${req.headers.get('host') ?? u.host}`;
 }

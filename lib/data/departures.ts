@@ -6,6 +6,7 @@ import { Conflict, Forbidden, Invalid, NotFound } from '@/lib/api/errors';
 import { formatDayTime, localDateKey, localDateOf, zonedTimeToUtc } from '@/lib/time';
 import { MAX_DAYS_AHEAD, MIN_HOURS_BETWEEN, type DepartAtInput, type DepartureCreate, type DepartureUpdate } from '@/lib/validation/departures';
 import { getAircraft, loadAircraftRecords, mayBook, type AircraftRecord } from './aircraft';
+import { writeTransaction } from '@/models/transaction';
 
 // Departures (the first flight of a day per aircraft), always scoped to one organization. A pilot
 // books and changes their own, for aircraft they may fly; roles with 'departures:book-any' for anyone.
@@ -192,6 +193,15 @@ async function checkDeparture(
   }
 }
 
+/**
+ * Takes the aircraft's row lock for the rest of the transaction, so two bookings of one aircraft check
+ * for a clash one after the other (PostgreSQL; on SQLite the IMMEDIATE transaction already serialises writers).
+ */
+async function lockAircraft({ orgId, aircraftId }: { orgId: number; aircraftId: number }, transaction: Transaction) {
+  const { Aircraft } = db();
+  await Aircraft.findOne({ where: { id: aircraftId, organizationId: orgId }, attributes: ['id'], lock: transaction.LOCK.UPDATE, transaction });
+}
+
 async function checkPilot({ orgId, pilotId }: { orgId: number; pilotId: number }, transaction: Transaction) {
   const { User } = db();
   const u = await User.findOne({ where: { id: pilotId, organizationId: orgId, active: true }, transaction });
@@ -206,8 +216,9 @@ function usableAircraft(a: AircraftRecord) {
 }
 
 export async function bookDeparture({ orgId, actor, input, now = new Date() }: { orgId: number; actor: Actor; input: DepartureCreate; now?: Date }): Promise<DepartureRecord> {
-  const { sequelize } = db();
-  return sequelize.transaction(async (transaction) => {
+  db();
+  return writeTransaction(async (transaction) => {
+    await lockAircraft({ orgId, aircraftId: input.aircraftId }, transaction);
     const aircraft = await getAircraft({ orgId, aircraftId: input.aircraftId, transaction });
     const pilotId = input.pilotId ?? actor.id;
     if (!actor.bookAny) {
@@ -255,14 +266,15 @@ export async function updateDeparture({
   patch: DepartureUpdate;
   now?: Date;
 }): Promise<DepartureRecord> {
-  const { sequelize } = db();
-  return sequelize.transaction(async (transaction) => {
+  db();
+  return writeTransaction(async (transaction) => {
     const row = await changeable({ orgId, departureId, actor, now }, transaction);
     if (patch.pilotId !== undefined && patch.pilotId !== row.pilotId) {
       if (!actor.bookAny) throw new Forbidden('Only an operator or a manager can hand a departure to another pilot.');
       await checkPilot({ orgId, pilotId: patch.pilotId }, transaction);
       row.pilotId = patch.pilotId;
     }
+    await lockAircraft({ orgId, aircraftId: row.aircraftId }, transaction);
     const aircraft = await getAircraft({ orgId, aircraftId: row.aircraftId, transaction });
     usableAircraft(aircraft);
     const departAtMs = patch.departAt ? resolveDepartAt(patch.departAt, zoneOf(aircraft)) : new Date(row.departAt).getTime();
@@ -279,8 +291,8 @@ export async function updateDeparture({
 }
 
 export async function cancelDeparture({ orgId, actor, departureId, now = new Date() }: { orgId: number; actor: Actor; departureId: number; now?: Date }): Promise<DepartureRecord> {
-  const { sequelize } = db();
-  return sequelize.transaction(async (transaction) => {
+  db();
+  return writeTransaction(async (transaction) => {
     const row = await changeable({ orgId, departureId, actor, now }, transaction);
     row.cancelledAt = now;
     await row.save({ transaction });

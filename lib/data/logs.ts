@@ -13,6 +13,7 @@ import { suggestWindow, type SuggestedWindow } from '@/lib/fit/window';
 import { fitCooldown, FitRefused, type FitReport } from '@/lib/fit/cooldown';
 import type { LogSeries, UnitChoice } from '@/lib/fit/types';
 import type { FitRequest } from '@/lib/validation/logs';
+import { writeTransaction } from '@/models/transaction';
 
 // Fit from log: uploaded temperature logs of one aircraft, their fits, and the history of the aircraft's
 // thermal profile (apply a fit, go back to any earlier profile). Always scoped to one organization:
@@ -175,10 +176,10 @@ export async function storeLog({
       `The file has ${n} problem${n === 1 ? '' : 's'}; nothing was stored. First: ${r.problems[0]?.message ?? ''}`,
     );
   }
-  const { TempLog, sequelize } = db();
+  const { TempLog } = db();
   const s = r.series;
   const preview = previewOf(fileName, r);
-  const log = await sequelize.transaction(async (transaction) => {
+  const log = await writeTransaction(async (transaction) => {
     const row = await TempLog.create(
       {
         organizationId: orgId,
@@ -404,8 +405,8 @@ export async function recordThermalChange({
 export async function applyFit({ orgId, aircraftId, userId, logId, model, note }: { orgId: number; aircraftId: number; userId: number; logId: number; model: 'one-node' | 'two-node'; note: string }) {
   const aircraft = await getAircraft({ orgId, aircraftId });
   if (aircraft.archived) throw new Conflict('This aircraft is archived: restore it before changing its profile.');
-  const { sequelize } = db();
-  const rev = await sequelize.transaction(async (transaction) => {
+  db();
+  const rev = await writeTransaction(async (transaction) => {
     const l = await findLog({ orgId, aircraftId, logId, transaction });
     const fit = l.fit as StoredFit | null;
     if (!fit) throw new Conflict('Fit this log before applying it.');
@@ -423,8 +424,8 @@ export async function applyFit({ orgId, aircraftId, userId, logId, model, note }
 export async function revertProfile({ orgId, aircraftId, userId, revisionId, note }: { orgId: number; aircraftId: number; userId: number; revisionId: number; note: string }) {
   const aircraft = await getAircraft({ orgId, aircraftId });
   if (aircraft.archived) throw new Conflict('This aircraft is archived: restore it before changing its profile.');
-  const { sequelize, ProfileRevision } = db();
-  const rev = await sequelize.transaction(async (transaction) => {
+  const { ProfileRevision } = db();
+  const rev = await writeTransaction(async (transaction) => {
     const target = await ProfileRevision.findOne({ where: { id: revisionId, organizationId: orgId, aircraftId }, transaction });
     if (!target) throw new Invalid([{ field: 'revisionId', message: 'No such revision of this aircraft’s profile.' }]);
     return recordThermalChange({ orgId, aircraftId, userId, thermal: target.thermal, kind: 'revert', restoredFromId: target.id, summary: target.summary ?? null, note, transaction });

@@ -26,6 +26,21 @@ export interface CapturedDetail extends CapturedSummary {
   text: string;
   html: string;
   raw: string;
+  /** True when single-use links were hidden because the viewer is not the recipient. */
+  redacted: boolean;
+}
+
+// Single-use links (invitation, password reset) are the recipient's alone: anyone else who read one
+// could take the account. The viewer shows them only to the recipient; for everyone else the token is
+// replaced and the source (where encodings could carry it in any shape) is withheld.
+const TOKEN_LINK = /(\/(?:invite|reset)\/)[A-Za-z0-9_-]{16,}/g;
+const SECRET_KINDS = new Set(['invite', 'reset']);
+export const REDACTED_LINK = 'link-only-for-the-recipient';
+const WITHHELD_SOURCE = 'The source of this message is withheld: it carries a single-use link that only its recipient may see.';
+
+function isRecipient(viewerEmail: string, r: CapturedMail): boolean {
+  const me = viewerEmail.trim().toLowerCase();
+  return r.recipients.some((x) => x.trim().toLowerCase() === me);
 }
 
 async function kindsByMessageId(ids: (string | null)[]) {
@@ -60,19 +75,26 @@ export async function listCapturedMail({ orgId, limit = 100 }: { orgId: number; 
   return rows.map((r) => summaryOf(r, kinds));
 }
 
-export async function getCapturedMail({ orgId, id }: { orgId: number; id: number }): Promise<CapturedDetail> {
+/** One captured message of the organization; single-use links are hidden unless the viewer is its recipient. */
+export async function getCapturedMail({ orgId, id, viewerEmail }: { orgId: number; id: number; viewerEmail: string }): Promise<CapturedDetail> {
   const { CapturedMail } = db();
   const r = await CapturedMail.findOne({ where: { id, organizationId: orgId } });
   if (!r) throw new NotFound('Message');
   const kinds = await kindsByMessageId([r.messageId]);
+  const summary = summaryOf(r, kinds);
+  const hasLink = (v: string) => new RegExp(TOKEN_LINK.source).test(v);
+  const carriesToken = SECRET_KINDS.has(summary.kind ?? '') || hasLink(r.text) || hasLink(r.html) || hasLink(r.raw);
+  const redact = carriesToken && !isRecipient(viewerEmail, r);
+  const hide = (v: string) => (redact ? v.replace(TOKEN_LINK, `$1${REDACTED_LINK}`) : v);
   return {
-    ...summaryOf(r, kinds),
+    ...summary,
     messageId: r.messageId,
     recipients: r.recipients,
     headers: r.headers,
-    text: r.text,
-    html: r.html,
-    raw: r.raw,
+    text: hide(r.text),
+    html: hide(r.html),
+    raw: redact ? WITHHELD_SOURCE : r.raw,
+    redacted: redact,
   };
 }
 

@@ -12,15 +12,15 @@ import { getDeparture, listDepartures, type Actor, type DepartureRecord } from '
 import { tariffPeriodsBetween, tariffsFor, type TariffRecord } from './tariffs';
 import type { Airfield } from '@/models/Airfield';
 import type { Forecast } from '@/models/Forecast';
+import type { HeatPlan } from '@/models/HeatPlan';
+import type { InferCreationAttributes } from 'sequelize';
 
 // Heat plans: computed from the departure, the aircraft and its heaters, the shelter, the airfield's
 // cached forecast and tariff; stored with a fingerprint of those inputs, recomputed when it changes.
 
-export type Readiness = 'ready' | 'warming' | 'short' | 'unplanned';
-const RANK: Record<Readiness, number> = { ready: 0, warming: 1, unplanned: 2, short: 3 };
-export function worstReadiness(list: Readiness[]): Readiness | null {
-  return list.length ? list.reduce((w, r) => (RANK[r] > RANK[w] ? r : w)) : null;
-}
+import { worstReadiness, type Readiness } from '@/lib/plans/state';
+import { frostRisk } from '@/lib/plans/frost';
+export type { Readiness };
 
 /** Plans are recomputed at most this often for the same inputs (the clock moves the earliest switch-on). */
 const NOW_STEP_MS = 10 * 60_000;
@@ -55,6 +55,8 @@ export interface PlanView {
   confirmed: { by: string; at: string } | null;
   computedAt: string;
   forecast: { fetchedAt: string | null; stale: boolean } | null;
+  /** Frost on the airframe before departure (aircraft outside only; null under a roof or without a forecast). */
+  frost: { likely: boolean; hours: number; from: string | null; to: string | null } | null;
   problem?: string;
 }
 
@@ -177,7 +179,16 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     confirmed: plan?.confirmedAt && plan.confirmedBy ? { by: plan.confirmedBy, at: plan.confirmedAt.toISOString() } : null,
     computedAt: (plan?.computedAt ?? ctx.now).toISOString(),
     forecast: fc ? { fetchedAt: fc.fetchedAt ? new Date(fc.fetchedAt).toISOString() : null, stale: !!fc.lastErrorKind } : null,
+    frost: frostOf(d, fc),
   };
+}
+
+function frostOf(d: DepartureRecord, fc: Forecast | null | undefined): PlanView['frost'] {
+  const af = d.aircraft.airfield;
+  if (!af || !fc?.hours?.length) return null;
+  const hours = fc.hours.map((h) => ({ atMs: Date.parse(h.at), tempC: h.tempC, dewPointC: h.dewPointC, windMps: h.windMps, cloudFraction: h.cloudFraction }));
+  const r = frostRisk({ hours, shelterKind: d.aircraft.shelter?.kind ?? null, departAtMs: d.departAtMs, lat: af.latitude, lon: af.longitude });
+  return r ? { likely: r.likely, hours: r.hours, from: iso(r.fromMs), to: iso(r.toMs) } : null;
 }
 
 async function contextFor(orgId: number, departures: DepartureRecord[], now: Date, refresh: 'never' | 'if-old'): Promise<Context> {
@@ -188,6 +199,22 @@ async function contextFor(orgId: number, departures: DepartureRecord[], now: Dat
   await Promise.all(airfields.map(async (a: Airfield) => forecasts.set(a.id, await forecastFor({ airfield: a, now, refresh }))));
   const tariffs = await tariffsFor({ orgId, airfieldIds: ids });
   return { forecasts, tariffs, now };
+}
+
+type StoredPlan = Omit<InferCreationAttributes<HeatPlan>, 'id' | 'createdAt' | 'updatedAt' | 'confirmedById' | 'confirmedAt' | 'confirmedKey'>;
+
+/**
+ * Stores a computed plan with one upsert on the departure's unique key, so simultaneous readers and the
+ * plan job leave one row per departure and none of them fails; a confirmation lapses unless it was given
+ * for these inputs (`keepConfirmation`).
+ */
+async function storePlan(values: StoredPlan, keepConfirmation: boolean): Promise<HeatPlan> {
+  const { HeatPlan } = db();
+  const v = keepConfirmation ? values : { ...values, confirmedAt: null, confirmedById: null, confirmedKey: null };
+  await HeatPlan.upsert(v, { conflictFields: ['departureId'], fields: Object.keys(v) as (keyof StoredPlan)[] });
+  const row = await HeatPlan.findOne({ where: { organizationId: values.organizationId, departureId: values.departureId } });
+  if (!row) throw new Error('heat plan: the stored plan was not found');
+  return row;
 }
 
 /**
@@ -211,8 +238,12 @@ async function plansFor(orgId: number, departures: DepartureRecord[], now: Date,
       out.push({ ...viewOf(d, { status: 'unplanned', result: null, freeOilC: null }, null, ctx, currency), summary: 'No forecast yet for this airfield', problem: 'no-forecast' });
       continue;
     }
-    const key = keyOf(rec, now.getTime());
     let row = byDep.get(d.id);
+    // Once a stored plan's switch-on time has come, the heater is on by that plan: the plan keeps its own
+    // clock, so it (and its switch-on time on every page, alert and e-mail) stays put until another input
+    // changes. Recomputing from "now" would restart the plan as if the oil had not been heated.
+    const underWay = !!row?.switchOnAt && row.switchOnAt.getTime() <= now.getTime();
+    const key = keyOf(rec, underWay ? row!.computedAt.getTime() : now.getTime());
     let computed: Computed;
     if (row && row.inputsKey === key) {
       computed = row.result as Computed;
@@ -238,12 +269,7 @@ async function plansFor(orgId: number, departures: DepartureRecord[], now: Date,
         probabilityReady: computed.result?.probabilityReady ?? null,
         result: computed,
       };
-      if (row) {
-        const keep = row.confirmedKey === key;
-        await row.update({ ...values, ...(keep ? {} : { confirmedAt: null, confirmedById: null, confirmedKey: null }) });
-      } else {
-        row = await HeatPlan.create(values);
-      }
+      row = await storePlan(values, row?.confirmedKey === key);
     }
     const confirmed = row.confirmedKey === row.inputsKey && row.confirmedById ? confirmers.get(row.confirmedById) ?? null : null;
     out.push(viewOf(d, computed, { computedAt: row.computedAt, confirmedBy: confirmed, confirmedAt: confirmed ? row.confirmedAt : null }, ctx, currency));

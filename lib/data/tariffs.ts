@@ -4,6 +4,7 @@ import { Tariff } from '@/models/Tariff';
 import { NotFound } from '@/lib/api/errors';
 import { offsetSecondsAt } from '@/lib/time';
 import { DEFAULT_TARIFF, type TariffInput, type TariffShape } from '@/lib/validation/tariffs';
+import { writeTransaction } from '@/models/transaction';
 
 export { DEFAULT_TARIFF, type TariffShape };
 
@@ -73,9 +74,9 @@ export async function tariffsFor({ orgId, airfieldIds }: { orgId: number; airfie
 
 /** Stores (or replaces) the airfield's tariff. */
 export async function putTariff({ orgId, airfieldId, input }: { orgId: number; airfieldId: number; input: TariffInput }): Promise<TariffRecord> {
-  const { sequelize } = db();
+  db();
   const af = await airfieldOf({ orgId, airfieldId });
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     let t = await Tariff.findOne({ where: { airfieldId: af.id, organizationId: orgId }, transaction });
     if (!t) t = Tariff.build({ organizationId: orgId, airfieldId: af.id, ...input });
     else t.set({ ...input });

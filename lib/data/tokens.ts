@@ -10,6 +10,7 @@ import { enqueueMail } from '@/lib/mail/outbox';
 import { renderInviteMail, renderResetMail } from '@/lib/mail/templates';
 import { organizationZone } from '@/lib/alerts/preferences';
 import type { Role } from '@/lib/auth/permissions';
+import { writeTransaction } from '@/models/transaction';
 
 // Single-use e-mail tokens: invitations (a week) and password resets (an hour). The token is 32 random
 // bytes; only its keyed hash is stored. A token is used by one conditional UPDATE (unused and not
@@ -88,9 +89,9 @@ async function consumeToken({ token, purpose, now, transaction }: { token: strin
 
 /** The invitee chooses a password (and may correct their name); the invitation is used up. */
 export async function acceptInvitation({ token, password, name, now = new Date() }: { token: string; password: string; name?: string; now?: Date }) {
-  const { User, sequelize } = db();
+  const { User } = db();
   const passwordHash = await bcrypt.hash(password, 10);
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const row = await consumeToken({ token, purpose: 'invite', now, transaction });
     const u = await User.findOne({ where: { id: row.userId, organizationId: row.organizationId, active: true }, transaction });
     if (!u) throw new Invalid([{ field: 'token', message: TOKEN_PROBLEM_MESSAGE.invite.invalid }], TOKEN_PROBLEM_MESSAGE.invite.invalid);
@@ -104,9 +105,9 @@ export async function acceptInvitation({ token, password, name, now = new Date()
 
 /** A new password from a reset link; the link and any other open reset links stop working. */
 export async function resetPassword({ token, password, now = new Date() }: { token: string; password: string; now?: Date }) {
-  const { User, Token, sequelize } = db();
+  const { User, Token } = db();
   const passwordHash = await bcrypt.hash(password, 10);
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const row = await consumeToken({ token, purpose: 'reset', now, transaction });
     const u = await User.findOne({ where: { id: row.userId, organizationId: row.organizationId, active: true }, transaction });
     if (!u) throw new Invalid([{ field: 'token', message: TOKEN_PROBLEM_MESSAGE.reset.invalid }], TOKEN_PROBLEM_MESSAGE.reset.invalid);
@@ -123,17 +124,44 @@ export async function resetPassword({ token, password, now = new Date() }: { tok
  * e-mail, at most one per ten minutes.
  */
 export async function requestPasswordReset({ email, now = new Date() }: { email: string; now?: Date }): Promise<void> {
-  const { User, OutboxMessage, sequelize } = db();
+  const { User, OutboxMessage } = db();
   const u = await User.findOne({ where: { email } });
   if (!u || !u.active) return;
   const dedupeKey = `reset:u${u.id}:${Math.floor(now.getTime() / RESET_WINDOW_MS)}`;
   if (await OutboxMessage.count({ where: { dedupeKey } })) return;
   const zone = await organizationZone(u.organizationId);
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const { token, expiresAt } = await createToken({ orgId: u.organizationId, userId: u.id, purpose: 'reset', now, transaction });
     const mail = renderResetMail({ name: u.name, url: absoluteUrl(`/reset/${token}`), expiresAt, timeZone: zone });
     await enqueueMail({ organizationId: u.organizationId, userId: u.id, kind: 'reset', to: u.email, mail, dedupeKey, now, transaction });
   });
+}
+
+const queuedResets = new Set<Promise<void>>();
+
+/**
+ * The reset request as the route makes it: the work (look-up, token, e-mail) is queued and the caller
+ * answered at once, so the answer takes the same path and the same time whether or not the address has
+ * an account. `then` runs after the work (delivery); failures are logged without the address.
+ */
+export function queuePasswordReset({ email, then }: { email: string; then?: () => void }): void {
+  const p: Promise<void> = requestPasswordReset({ email })
+    .then(() => then?.())
+    .catch((err) => {
+      // Two requests at once for one account: the outbox's unique dedupe key keeps the second e-mail out.
+      if ((err as { name?: string })?.name === 'SequelizeUniqueConstraintError') return;
+      console.error('[thawline] reset request failed', err instanceof Error ? err.name : 'error');
+    })
+    .finally(() => queuedResets.delete(p));
+  queuedResets.add(p);
+}
+
+/** For tests and shutdown: how many queued reset requests are still running, and a wait for them. */
+export function queuedResetCount(): number {
+  return queuedResets.size;
+}
+export async function settleQueuedResets(): Promise<void> {
+  while (queuedResets.size) await Promise.all([...queuedResets]);
 }
 
 /** Writes the invitation token and its e-mail (inside the caller's transaction). */
@@ -163,10 +191,10 @@ export async function writeInvitation({
 
 /** A manager sends a new invitation to someone who has not chosen a password yet. */
 export async function resendInvitation({ orgId, actorId, userId, now = new Date() }: { orgId: number; actorId: number; userId: number; now?: Date }) {
-  const { User, sequelize } = db();
+  const { User } = db();
   const u = await User.findOne({ where: { id: userId, organizationId: orgId } });
   if (!u) throw new NotFound('User');
   if (!u.active) throw new Conflict('This user is deactivated. Reactivate them first.');
   if (!u.mustChangePassword) throw new Conflict('This user has already chosen a password. They can reset it from the sign-in page.');
-  return sequelize.transaction((transaction) => writeInvitation({ orgId, user: u, inviterId: actorId, now, transaction }));
+  return writeTransaction((transaction) => writeInvitation({ orgId, user: u, inviterId: actorId, now, transaction }));
 }

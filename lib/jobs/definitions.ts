@@ -1,10 +1,13 @@
 // The recurring jobs: what each does, how often (croner patterns, server-local clock) and how long its
 // lease holds (longer than the interval, so the holder keeps the job; a dead holder's lease lapses).
+// Each job takes its airfields, organizations and rows one at a time: one that fails is logged (ids and
+// the error's name only) and skipped, and the rest still run.
 import { db } from '@/models';
 import { forecastFor } from '@/lib/data/forecasts';
 import { plansBetween } from '@/lib/data/plans';
 import { evaluateAlerts, evaluateColdNight } from '@/lib/alerts/evaluate';
 import { deliverDue } from '@/lib/mail/deliver';
+import { logSkipped } from '@/lib/log';
 
 export type JobName = 'forecast-refresh' | 'plan-recompute' | 'alert-evaluation' | 'cold-night-notice' | 'mail-delivery';
 
@@ -34,11 +37,17 @@ export const JOBS: JobDefinition[] = [
       const { Airfield } = db();
       const airfields = await Airfield.findAll({ where: { archivedAt: null } });
       let refreshed = 0;
+      let skipped = 0;
       for (const a of airfields) {
-        await forecastFor({ airfield: a, now, refresh: 'if-old' });
-        refreshed++;
+        try {
+          await forecastFor({ airfield: a, now, refresh: 'if-old' });
+          refreshed++;
+        } catch (err) {
+          skipped++;
+          logSkipped('forecast refresh', { org: a.organizationId, airfield: a.id }, err);
+        }
       }
-      return { airfields: refreshed };
+      return { airfields: refreshed, skipped };
     },
   },
   {
@@ -48,10 +57,16 @@ export const JOBS: JobDefinition[] = [
     async run({ now }) {
       const { Organization } = db();
       let plans = 0;
+      let skipped = 0;
       for (const org of await Organization.findAll({ attributes: ['id'] })) {
-        plans += (await plansBetween({ orgId: org.id, fromMs: now.getTime() - 30 * MIN, toMs: now.getTime() + PLAN_HORIZON_MS, now, refresh: 'if-old' })).length;
+        try {
+          plans += (await plansBetween({ orgId: org.id, fromMs: now.getTime() - 30 * MIN, toMs: now.getTime() + PLAN_HORIZON_MS, now, refresh: 'if-old' })).length;
+        } catch (err) {
+          skipped++;
+          logSkipped('plan recompute of an organization', { org: org.id }, err);
+        }
       }
-      return { plans };
+      return { plans, skipped };
     },
   },
   { name: 'alert-evaluation', pattern: '*/10 * * * *', ttlMs: 25 * MIN, run: ({ now }) => evaluateAlerts({ now }) },

@@ -4,10 +4,15 @@
 import { Op } from 'sequelize';
 import { db } from '@/models';
 
-/** Makes sure the lease row exists (a duplicate insert is ignored on every dialect). */
+/** Makes sure the lease row exists (another instance creating it at the same time is fine). */
 export async function ensureLease(name: string) {
   const { Lease } = db();
-  await Lease.bulkCreate([{ name, holder: '', expiresAt: new Date(0), runs: 0 }], { ignoreDuplicates: true });
+  if (await Lease.findByPk(name, { attributes: ['name'] })) return;
+  try {
+    await Lease.create({ name, holder: '', expiresAt: new Date(0), runs: 0 });
+  } catch (err) {
+    if ((err as { name?: string }).name !== 'SequelizeUniqueConstraintError') throw err;
+  }
 }
 
 /** Takes or renews the lease for `ttlMs`; true when `holder` now holds it. */

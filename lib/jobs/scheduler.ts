@@ -5,6 +5,7 @@ import crypto from 'node:crypto';
 import { Cron } from 'croner';
 import { acquireLease, recordRun, releaseLease } from './lease';
 import { JOBS, type JobDefinition, type JobName } from './definitions';
+import { describeError } from '@/lib/log';
 
 export type RunOutcome = { ran: true; result: unknown } | { ran: false; reason: 'lease-held' | 'busy' } | { ran: false; reason: 'error'; error: string };
 
@@ -13,6 +14,8 @@ export class Scheduler {
   private readonly jobs: Map<JobName, JobDefinition>;
   private timers: Cron[] = [];
   private running = new Set<JobName>();
+  /** The last attempt of each job in this process: when, and whether it ran here. */
+  readonly lastAttempts = new Map<JobName, { at: Date; outcome: 'ran' | 'lease-held' | 'error' }>();
   private readonly log: (msg: string) => void;
 
   constructor(opts: { holder?: string; jobs?: JobDefinition[]; log?: (msg: string) => void } = {}) {
@@ -28,13 +31,18 @@ export class Scheduler {
     if (this.running.has(name)) return { ran: false, reason: 'busy' };
     this.running.add(name);
     try {
-      if (!(await acquireLease({ name, holder: this.holder, ttlMs: job.ttlMs, now }))) return { ran: false, reason: 'lease-held' };
+      if (!(await acquireLease({ name, holder: this.holder, ttlMs: job.ttlMs, now }))) {
+        this.lastAttempts.set(name, { at: now, outcome: 'lease-held' });
+        return { ran: false, reason: 'lease-held' };
+      }
       const result = await job.run({ now, holder: this.holder });
       await recordRun({ name, holder: this.holder, now: new Date() });
+      this.lastAttempts.set(name, { at: now, outcome: 'ran' });
       return { ran: true, result };
     } catch (err) {
-      this.log(`job ${name} failed: ${err instanceof Error ? err.message : String(err)}`);
-      return { ran: false, reason: 'error', error: err instanceof Error ? err.message : String(err) };
+      this.lastAttempts.set(name, { at: now, outcome: 'error' });
+      this.log(`job ${name} failed: ${describeError(err)}`);
+      return { ran: false, reason: 'error', error: describeError(err) };
     } finally {
       this.running.delete(name);
     }

@@ -6,6 +6,7 @@ import type { AddressInfo } from 'node:net';
 import { Op } from 'sequelize';
 import { db } from '@/models';
 import { readMime } from './mime';
+import { describeError } from '@/lib/log';
 
 /** Largest message kept (the viewer is for Thawline's own mail; bigger ones are refused with 552). */
 export const CAPTURE_MAX_BYTES = 5 * 1024 * 1024;
@@ -35,26 +36,27 @@ export async function storeCaptured(raw: Buffer, envelope: { from: string; to: s
     organizationId = u?.organizationId ?? null;
   }
   const keep = ['from', 'to', 'subject', 'date', 'message-id', 'list-unsubscribe', 'list-unsubscribe-post', 'content-type', 'mime-version'];
-  await CapturedMail.bulkCreate(
-    [
-      {
-        organizationId,
-        messageId: msg.messageId?.slice(0, 250) ?? null,
-        envelopeFrom: envelope.from.slice(0, 254),
-        recipients: envelope.to,
-        fromHeader: msg.from.slice(0, 500),
-        toHeader: msg.to.slice(0, 500),
-        subject: msg.subject.slice(0, 500),
-        text: msg.text,
-        html: msg.html,
-        headers: Object.fromEntries(keep.filter((k) => msg.headers[k] !== undefined).map((k) => [k, msg.headers[k]])),
-        raw: raw.toString('utf8'),
-        sizeBytes: raw.length,
-        receivedAt,
-      },
-    ],
-    { ignoreDuplicates: true },
-  );
+  // One copy per Message-ID (unique index); inserted with bound parameters, whatever the message holds.
+  if (msg.messageId && (await CapturedMail.findOne({ where: { messageId: msg.messageId.slice(0, 250) }, attributes: ['id'] }))) return;
+  try {
+    await CapturedMail.create({
+      organizationId,
+      messageId: msg.messageId?.slice(0, 250) ?? null,
+      envelopeFrom: envelope.from.slice(0, 254),
+      recipients: envelope.to,
+      fromHeader: msg.from.slice(0, 500),
+      toHeader: msg.to.slice(0, 500),
+      subject: msg.subject.slice(0, 500),
+      text: msg.text,
+      html: msg.html,
+      headers: Object.fromEntries(keep.filter((k) => msg.headers[k] !== undefined).map((k) => [k, msg.headers[k]])),
+      raw: raw.toString('utf8'),
+      sizeBytes: raw.length,
+      receivedAt,
+    });
+  } catch (err) {
+    if ((err as { name?: string }).name !== 'SequelizeUniqueConstraintError') throw err;
+  }
 }
 
 function collect(stream: SMTPServerDataStream): Promise<Buffer> {
@@ -87,7 +89,7 @@ export async function startCapture({ port, host = '127.0.0.1' }: { port: number;
           callback();
         })
         .catch((e) => {
-          console.error('[thawline] mail capture could not store a message', e);
+          console.error(`[thawline] mail capture could not store a message: ${describeError(e)}`);
           const err = new Error('The local capture could not store the message; try again') as Error & { responseCode: number };
           err.responseCode = 451;
           callback(err);
@@ -101,7 +103,7 @@ export async function startCapture({ port, host = '127.0.0.1' }: { port: number;
       resolve();
     });
   });
-  server.on('error', (e) => console.error('[thawline] mail capture error', e));
+  server.on('error', (e) => console.error(`[thawline] mail capture error: ${describeError(e)}`));
   const bound = (server.server.address() as AddressInfo).port;
   return { port: bound, close: () => new Promise<void>((r) => server.close(() => r())) };
 }

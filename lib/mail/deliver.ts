@@ -9,6 +9,8 @@ import { env } from '@/lib/env';
 import { channelFor, preferencesFor } from '@/lib/alerts/preferences';
 import type { AlertKind } from '@/models/Alert';
 import { defaultTransport, type MailTransport } from './transport';
+import { describeError, logSkipped } from '@/lib/log';
+import { stripControlChars } from '@/lib/validation/text';
 
 export const MAX_ATTEMPTS = 20;
 /** How long a claim holds: longer than any one SMTP conversation (nodemailer's timeouts add to < 1 min). */
@@ -90,47 +92,82 @@ export async function deliverDue({
     const where = ids ? { [Op.and]: [dueWhere(now), { id: { [Op.in]: ids } }] } : dueWhere(now);
     const due = await OutboxMessage.findAll({ where, order: [['nextAttemptAt', 'ASC'], ['id', 'ASC']], limit, attributes: ['id'] });
     for (const { id } of due) {
-      const [claimed] = await OutboxMessage.update(
-        { status: 'sending', claimedBy: holder, claimedUntil: new Date(now.getTime() + CLAIM_MS), attempts: literal('attempts + 1') as unknown as number },
-        { where: { [Op.and]: [{ id }, dueWhere(now)] } },
-      );
-      if (claimed !== 1) continue; // another worker took it
-      const m = (await OutboxMessage.findByPk(id))!;
-      const mine = { id, claimedBy: holder, status: 'sending' };
-      if (m.expiresAt && m.expiresAt.getTime() <= now.getTime()) {
-        await OutboxMessage.update({ status: 'expired', claimedBy: null, claimedUntil: null }, { where: mine });
-        report.expired++;
-        continue;
-      }
-      if (!(await stillWanted(m))) {
-        await OutboxMessage.update({ status: 'cancelled', claimedBy: null, claimedUntil: null }, { where: mine });
-        report.cancelled++;
-        continue;
-      }
       try {
-        await t.send({ from, to: m.toAddress, subject: m.subject, text: m.text, html: m.html, messageId: m.messageId, headers: m.headers ?? undefined });
-        await OutboxMessage.update({ status: 'sent', sentAt: new Date(), lastError: null, claimedUntil: null }, { where: mine });
-        report.sent++;
-      } catch (err) {
-        const last = m.attempts >= MAX_ATTEMPTS;
-        await OutboxMessage.update(
-          {
-            status: last ? 'failed' : 'pending',
-            lastError: shortError(err),
-            claimedBy: null,
-            claimedUntil: null,
-            nextAttemptAt: new Date(now.getTime() + backoffMinutes(m.attempts) * 60_000),
-          },
-          { where: mine },
+        const [claimed] = await OutboxMessage.update(
+          { status: 'sending', claimedBy: holder, claimedUntil: new Date(now.getTime() + CLAIM_MS), attempts: literal('attempts + 1') as unknown as number },
+          { where: { [Op.and]: [{ id }, dueWhere(now)] } },
         );
-        if (last) report.failed++;
-        else report.retried++;
+        if (claimed !== 1) continue; // another worker took it
+        const m = (await OutboxMessage.findByPk(id))!;
+        const mine = { id, claimedBy: holder, status: 'sending' };
+        if (m.expiresAt && m.expiresAt.getTime() <= now.getTime()) {
+          await OutboxMessage.update({ status: 'expired', claimedBy: null, claimedUntil: null }, { where: mine });
+          report.expired++;
+          continue;
+        }
+        if (!(await stillWanted(m))) {
+          await OutboxMessage.update({ status: 'cancelled', claimedBy: null, claimedUntil: null }, { where: mine });
+          report.cancelled++;
+          continue;
+        }
+        try {
+          // Rows stored before the outbox took control characters out are cleaned on the way.
+          await t.send({
+            from,
+            to: stripControlChars(m.toAddress),
+            subject: stripControlChars(m.subject),
+            text: stripControlChars(m.text, { multiline: true }),
+            html: stripControlChars(m.html, { multiline: true }),
+            messageId: m.messageId,
+            headers: m.headers ?? undefined,
+          });
+          await OutboxMessage.update({ status: 'sent', sentAt: new Date(), lastError: null, claimedUntil: null }, { where: mine });
+          report.sent++;
+        } catch (err) {
+          const last = m.attempts >= MAX_ATTEMPTS;
+          await OutboxMessage.update(
+            {
+              status: last ? 'failed' : 'pending',
+              lastError: shortError(err),
+              claimedBy: null,
+              claimedUntil: null,
+              nextAttemptAt: new Date(now.getTime() + backoffMinutes(m.attempts) * 60_000),
+            },
+            { where: mine },
+          );
+          if (last) report.failed++;
+          else report.retried++;
+        }
+      } catch (err) {
+        // One message that cannot be handled (a bad stored value, a database refusal) is put back with
+        // backoff and, after the last attempt, marked failed; the others still go.
+        report.retried++;
+        logSkipped('mail delivery', { message: id }, err);
+        await markBroken(id, holder, now, err).catch((e) => logSkipped('mail delivery bookkeeping', { message: id }, e));
       }
     }
   } finally {
     if (own) t.close();
   }
   return report;
+}
+
+/** Gives a claimed message whose handling failed back to the queue (or marks it failed after the last attempt). */
+async function markBroken(id: number, holder: string, now: Date, err: unknown) {
+  const { OutboxMessage } = db();
+  const m = await OutboxMessage.findByPk(id, { attributes: ['id', 'attempts'] });
+  if (!m) return;
+  const last = m.attempts >= MAX_ATTEMPTS;
+  await OutboxMessage.update(
+    {
+      status: last ? 'failed' : 'pending',
+      lastError: describeError(err).slice(0, 480),
+      claimedBy: null,
+      claimedUntil: null,
+      nextAttemptAt: new Date(now.getTime() + backoffMinutes(m.attempts) * 60_000),
+    },
+    { where: { id, claimedBy: holder, status: 'sending' } },
+  );
 }
 
 /** Puts failed messages of an organization back in the queue (the mail viewer's "Try again"). */

@@ -1,4 +1,7 @@
-// Links in e-mails: absolute URLs on the public base (NEXTAUTH_URL), and the signed unsubscribe link.
+// Links in e-mails: absolute URLs on the public base, and the signed unsubscribe link. The base is
+// NEXTAUTH_URL when set, else the origin this server listens on (http://localhost:$PORT; `next start`
+// puts the port it serves on into PORT). Never a request's Host header: anyone can send a reset request
+// with a forged Host and would then choose where the victim's reset link points.
 // The only secrets that appear in a URL are the single-use tokens (invitation, reset) and the
 // unsubscribe signature, which can do nothing but turn one kind of alert e-mail off.
 import crypto from 'node:crypto';
@@ -8,7 +11,8 @@ export type UnsubscribeKind = 'oil-too-cold' | 'switch-on' | 'cold-night' | 'all
 const KINDS: readonly UnsubscribeKind[] = ['oil-too-cold', 'switch-on', 'cold-night', 'all'];
 
 export function baseUrl(): string {
-  return env().NEXTAUTH_URL.replace(/\/+$/, '');
+  const e = env();
+  return (e.NEXTAUTH_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, '');
 }
 
 export function absoluteUrl(path: string): string {

@@ -1,7 +1,11 @@
 // The durable outbox: every e-mail is first a row. Enqueueing the same de-duplication key twice
-// writes one row (unique index; the insert ignores a duplicate on every dialect Sequelize speaks).
+// writes one row (unique index; a look-up first, and a writer that loses the race to the same key finds
+// the other's row). Inserted with bound parameters (Model.create), never with values in the SQL text;
+// control characters (from data stored before the text fields refused them) are taken out first.
 import crypto from 'node:crypto';
 import type { Transaction } from 'sequelize';
+import { writeTransaction } from '@/models/transaction';
+import { stripControlChars } from '@/lib/validation/text';
 import { db } from '@/models';
 import type { MailKind } from '@/models/OutboxMessage';
 import type { RenderedMail } from './templates';
@@ -28,28 +32,42 @@ export function messageIdFor(dedupeKey: string): string {
 }
 
 export async function enqueueMail(m: EnqueueInput): Promise<{ id: number; created: boolean }> {
-  const { OutboxMessage } = db();
+  const { OutboxMessage, sequelize } = db();
   const now = m.now ?? new Date();
+  const line = (v: string) => stripControlChars(v);
+  const body = (v: string) => stripControlChars(v, { multiline: true });
+  const dedupeKey = line(m.dedupeKey).slice(0, 200);
   const values = {
     organizationId: m.organizationId,
     userId: m.userId,
     alertId: m.alertId ?? null,
     kind: m.kind,
-    toAddress: m.to,
-    subject: m.mail.subject.slice(0, 250),
-    text: m.mail.text,
-    html: m.mail.html,
-    headers: m.mail.headers ?? null,
-    dedupeKey: m.dedupeKey.slice(0, 200),
+    toAddress: line(m.to),
+    subject: line(m.mail.subject).slice(0, 250),
+    text: body(m.mail.text),
+    html: body(m.mail.html),
+    headers: m.mail.headers ? Object.fromEntries(Object.entries(m.mail.headers).map(([k, v]) => [line(k), line(String(v))])) : null,
+    dedupeKey,
     messageId: messageIdFor(m.dedupeKey),
     status: 'pending' as const,
     attempts: 0,
     nextAttemptAt: m.notBefore && m.notBefore > now ? m.notBefore : now,
     expiresAt: m.expiresAt ?? null,
   };
-  const before = await OutboxMessage.count({ where: { dedupeKey: values.dedupeKey }, transaction: m.transaction });
-  if (!before) await OutboxMessage.bulkCreate([values], { ignoreDuplicates: true, transaction: m.transaction });
-  const row = await OutboxMessage.findOne({ where: { dedupeKey: values.dedupeKey }, transaction: m.transaction });
-  if (!row) throw new Error('outbox: the message was neither written nor found');
-  return { id: row.id, created: !before };
+  const once = async (transaction: Transaction) => {
+    const found = await OutboxMessage.findOne({ where: { dedupeKey }, attributes: ['id'], transaction });
+    if (found) return { id: found.id, created: false };
+    const row = await OutboxMessage.create(values, { transaction });
+    return { id: row.id, created: true };
+  };
+  if (!m.transaction) return writeTransaction(once, { retryOnUnique: true });
+  try {
+    // A savepoint: another writer's row with the same key must not abort the caller's transaction (PostgreSQL).
+    return await sequelize.transaction({ transaction: m.transaction }, once);
+  } catch (err) {
+    if ((err as { name?: string }).name !== 'SequelizeUniqueConstraintError') throw err;
+    const row = await OutboxMessage.findOne({ where: { dedupeKey }, attributes: ['id'], transaction: m.transaction });
+    if (!row) throw err;
+    return { id: row.id, created: false };
+  }
 }

@@ -117,3 +117,26 @@ export function renderResetMail(p: { name: string; url: string; expiresAt: Date;
     reason: 'You get this e-mail because a password reset was asked for this address on Thawline.',
   });
 }
+
+/**
+ * To the owner of an address that a manager of another organization tried to add: that manager is
+ * answered as for a free address (nothing tells them the address has an account), so the owner hears of
+ * it here and can tell them to use another address.
+ */
+export function renderAddressInUseMail(p: { name: string; orgName: string }): RenderedMail {
+  return render({
+    subject: `Someone tried to add this address to ${p.orgName} on Thawline`,
+    preheader: 'Your account is unchanged.',
+    label: 'Account notice',
+    tone: 'ice',
+    title: 'Your address was offered to another organization',
+    intro: [
+      `Hello ${p.name}, a manager of ${p.orgName} tried to add this e-mail address to their organization on Thawline.`,
+      'One address can belong to one Thawline account, and yours already has one, so nothing was added and your account is unchanged. If you want to join them, ask them to invite another address of yours.',
+    ],
+    action: { label: 'Sign in to Thawline', url: absoluteUrl('/signin') },
+    afterAction: ['If you do not know them, you can ignore this e-mail.'],
+    cautions: [...CAUTIONS.account],
+    reason: 'You get this e-mail because your address was entered on Thawline by a manager of another organization.',
+  });
+}

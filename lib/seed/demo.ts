@@ -9,6 +9,7 @@ import { aircraftDefaultsFor, shelterDefaultsFor } from './defaults';
 import { seedPlanning } from './planning';
 import { seedOilLog } from './oil';
 import { seedAlerts } from './alerts';
+import { writeTransaction } from '@/models/transaction';
 
 // The invented demo scenario (data/demo/scenario.json) written into an empty database in one transaction.
 const scenarioSchema = z.object({
@@ -65,9 +66,9 @@ export interface SeedContext {
 
 export async function seedDemo(now = new Date()): Promise<string> {
   const scenario = loadScenario();
-  const { sequelize, Organization, User, Airfield, Shelter, Aircraft } = db();
+  const { Organization, User, Airfield, Shelter, Aircraft } = db();
   const passwordHash = await bcrypt.hash(scenario.password, 10);
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const ctx: SeedContext = { scenario, now, orgIds: {}, userIds: {}, airfieldIds: {}, shelterIds: {}, aircraftIds: {}, transaction };
     for (const o of scenario.organizations) {
       const org = await Organization.create({ name: o.name, coldNightThresholdC: o.coldNightThresholdC, coldNightNoticeAt: o.coldNightNoticeAt }, { transaction });

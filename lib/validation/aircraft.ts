@@ -5,6 +5,7 @@ import { z } from 'zod';
 import { toNumberInput } from './numbers';
 import { HEATER_CONTROLS, type HeaterControl } from '@/lib/heater-controls';
 import { ENGINE_CLASSES, ENGINE_CLASS_IDS, HEATER_KINDS, type EngineClassId, type HeaterKind } from '@/lib/thermal/presets';
+import { text } from './text';
 
 export { ENGINE_CLASSES, ENGINE_CLASS_IDS, HEATER_KINDS, HEATER_CONTROLS, type EngineClassId, type HeaterKind, type HeaterControl };
 export const HEATER_KIND_IDS = Object.keys(HEATER_KINDS) as HeaterKind[];
@@ -73,8 +74,7 @@ export const idSchema = (what: string) =>
 
 /** An ISO-8601 instant with an offset or Z ("2026-01-14T05:30:00Z"). */
 export const isoInstant = (what: string) =>
-  z
-    .string({ error: `Enter the ${what}.` })
+  text({ error: `Enter the ${what}.` })
     .trim()
     .refine((s) => /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,3})?)?(Z|[+-]\d{2}:?\d{2})$/.test(s) && Number.isFinite(Date.parse(s)), {
       message: `Enter the ${what} as a date and time with its offset (ISO 8601).`,
@@ -85,8 +85,7 @@ export const isoInstant = (what: string) =>
 // Aircraft fields
 
 /** A registration mark: 2–10 upper-case letters and digits, hyphens inside (the form upper-cases it). */
-export const registrationSchema = z
-  .string({ error: 'Enter the registration.' })
+export const registrationSchema = text({ error: 'Enter the registration.' })
   .trim()
   .toUpperCase()
   .min(1, 'Enter the registration.')
@@ -95,8 +94,7 @@ export const registrationSchema = z
   .refine((s) => s.length >= 2, 'Use at least 2 characters.')
   .refine((s) => /[A-Z]/.test(s), 'A registration has at least one letter.');
 
-export const typeLabelSchema = z
-  .string({ error: 'Enter the type.' })
+export const typeLabelSchema = text({ error: 'Enter the type.' })
   .trim()
   .min(1, 'Enter the type (e.g. four-seat high-wing).')
   .max(80, 'Use at most 80 characters.');

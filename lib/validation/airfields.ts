@@ -6,6 +6,7 @@ import { toNumberInput } from './numbers';
 import type { ShelterKind } from '@/models/Shelter';
 import { shelterDefaultsFor } from '@/lib/seed/defaults';
 import { canonicalTimeZone } from '@/lib/time';
+import { text } from './text';
 
 export type { ShelterKind };
 
@@ -60,14 +61,12 @@ function optionalNumber(what: string, min: number, max: number, unit = '') {
   return z.preprocess(toNumberInput, numberCore(what, min, max, unit).optional());
 }
 
-export const nameSchema = z
-  .string({ error: 'Enter a name.' })
+export const nameSchema = text({ error: 'Enter a name.' })
   .trim()
   .min(1, 'Enter a name.')
   .max(120, 'Use at most 120 characters.');
 
-export const timeZoneSchema = z
-  .string({ error: 'Choose a time zone.' })
+export const timeZoneSchema = text({ error: 'Choose a time zone.' })
   .trim()
   .min(1, 'Choose a time zone.')
   .max(64, 'That is not a time zone Thawline knows (IANA name, e.g. Europe/Helsinki).')
@@ -82,8 +81,7 @@ export const timeZoneSchema = z
 
 const airfieldFields = {
   name: nameSchema,
-  ident: z
-    .string({ error: 'Enter an identifier.' })
+  ident: text({ error: 'Enter an identifier.' })
     .trim()
     .toUpperCase()
     .min(2, 'Use 2 to 8 letters or digits.')

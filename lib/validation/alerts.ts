@@ -1,10 +1,10 @@
 // Alert preferences and acknowledgements: one set of schemas for the form and the route handlers.
 import { z } from 'zod';
 import { canonicalTimeZone } from '@/lib/time';
+import { text } from './text';
 
 export const HHMM_RE = /^([01]\d|2[0-3]):[0-5]\d$/;
-const hhmm = z
-  .string()
+const hhmm = text()
   .trim()
   .regex(HHMM_RE, 'Use a 24-hour time such as 22:00.');
 const optionalHhmm = z.union([hhmm, z.literal('').transform(() => null), z.null()]);
@@ -27,8 +27,7 @@ export const alertPreferencesSchema = z
     emailEnabled: z.boolean().optional(),
     quietStart: optionalHhmm.optional(),
     quietEnd: optionalHhmm.optional(),
-    timeZone: z
-      .string()
+    timeZone: text()
       .trim()
       .transform((z0, ctx) => {
         const c = canonicalTimeZone(z0);

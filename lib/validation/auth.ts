@@ -1,16 +1,17 @@
 import { z } from 'zod';
 import { ROLES } from '@/lib/auth/permissions';
+import { text } from './text';
 
-export const email = z.string().trim().toLowerCase().email('Enter a valid e-mail address.').max(254);
-export const password = z.string().min(10, 'Use at least 10 characters.').max(200, 'Use at most 200 characters.');
+export const email = text().trim().toLowerCase().email('Enter a valid e-mail address.').max(254);
+export const password = text().min(10, 'Use at least 10 characters.').max(200, 'Use at most 200 characters.');
 
 export const signInSchema = z.object({
-  email: z.string().trim().toLowerCase().max(254),
-  password: z.string().max(200),
+  email: text().trim().toLowerCase().max(254),
+  password: text().max(200),
 });
 
 export const createUserSchema = z.object({
-  name: z.string().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.'),
+  name: text().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.'),
   email,
   role: z.enum(ROLES),
   temporaryPassword: password,
@@ -25,7 +26,7 @@ export const updateUserSchema = z
 
 export const changePasswordSchema = z
   .object({
-    currentPassword: z.string().min(1, 'Enter your current password.').max(200),
+    currentPassword: text().min(1, 'Enter your current password.').max(200),
     newPassword: password,
   })
   .refine((v) => v.currentPassword !== v.newPassword, { message: 'Choose a password different from the current one.', path: ['newPassword'] });
@@ -34,6 +35,6 @@ export const preferencesSchema = z
   .object({
     tempUnit: z.enum(['C', 'F']).optional(),
     volumeUnit: z.enum(['L', 'qt']).optional(),
-    name: z.string().trim().min(1).max(120).optional(),
+    name: text().trim().min(1).max(120).optional(),
   })
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change.', path: ['tempUnit'] });

@@ -2,6 +2,7 @@
 // One set of schemas for the booking form, the route handlers and any CLI. Temperatures in °C.
 import { z } from 'zod';
 import { clearableNumberIn, idSchema, optionalNumberIn, toNumberInput } from './aircraft';
+import { text, multilineText } from './text';
 
 /** Departures further ahead than this are refused: forecasts and plans do not reach that far. */
 export const MAX_DAYS_AHEAD = 60;
@@ -16,8 +17,7 @@ export type DepartAtInput =
 const LOCAL_RE = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})(?::00)?$/;
 const INSTANT_RE = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,3})?)?(Z|[+-]\d{2}:?\d{2})$/;
 
-export const departAtSchema = z
-  .string({ error: 'Enter the departure date and time.' })
+export const departAtSchema = text({ error: 'Enter the departure date and time.' })
   .trim()
   .min(1, 'Enter the departure date and time.')
   .transform((s, ctx): DepartAtInput => {
@@ -36,7 +36,7 @@ export const departAtSchema = z
   });
 
 const readyC = optionalNumberIn('ready temperature', -10, 100, ' °C');
-const notes = z.string({ error: 'Notes are text.' }).trim().max(500, 'Use at most 500 characters.');
+const notes = multilineText({ error: 'Notes are text.' }).trim().max(500, 'Use at most 500 characters.');
 
 export const departureCreateSchema = z.object({
   aircraftId: idSchema('an aircraft'),
@@ -66,8 +66,7 @@ export type DepartureUpdate = z.infer<typeof departureUpdateSchema>;
 
 /** A list bound: an ISO instant, or a date (YYYY-MM-DD, midnight UTC). */
 const bound = (what: string) =>
-  z
-    .string()
+  text()
     .trim()
     .optional()
     .transform((s, ctx) => {

@@ -2,12 +2,12 @@
 // The file itself is the request body (CSV bytes); everything else is parsed here.
 import { z } from 'zod';
 import { idSchema, isoInstant, optionalNumberIn } from './aircraft';
+import { text, multilineText } from './text';
 
 export const TEMP_UNIT_CHOICES = ['auto', 'C', 'F'] as const;
 
 export const logUploadQuery = z.object({
-  fileName: z
-    .string({ error: 'Give the file name.' })
+  fileName: text({ error: 'Give the file name.' })
     .trim()
     .max(200, 'Use a file name of at most 200 characters.')
     .transform((s) => s.replace(/^.*[\\/]/, '').replace(/[\u0000-\u001f]/g, '') || 'log.csv')
@@ -36,11 +36,11 @@ export type FitRequest = z.infer<typeof fitRequestSchema>;
 export const applyFitSchema = z.strictObject({
   logId: idSchema('a log'),
   model: z.enum(['one-node', 'two-node'], { error: 'Choose the one-node or the two-node fit.' }),
-  note: z.string({ error: 'The note is text.' }).trim().max(500, 'Use at most 500 characters.').default(''),
+  note: multilineText({ error: 'The note is text.' }).trim().max(500, 'Use at most 500 characters.').default(''),
 });
 export type ApplyFit = z.infer<typeof applyFitSchema>;
 
 export const revertSchema = z.strictObject({
   revisionId: idSchema('a profile revision'),
-  note: z.string({ error: 'The note is text.' }).trim().max(500, 'Use at most 500 characters.').default(''),
+  note: multilineText({ error: 'The note is text.' }).trim().max(500, 'Use at most 500 characters.').default(''),
 });

@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { clearableNumberIn, numberIn, optionalNumberIn } from './aircraft';
 import type { DepartAtInput } from './departures';
 import { fromDisplayTemp, fromDisplayVolume, tempLabel, toDisplayTemp, toDisplayVolume, volumeLabel, type TempUnit, type VolumeUnit } from '@/lib/units';
+import { text, multilineText } from './text';
 
 export interface DisplayUnits {
   tempUnit: TempUnit;
@@ -15,8 +16,7 @@ const INSTANT_RE = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,3})?)?(Z|[+-]\d
 
 /** A time as sent: an instant with an offset, or the airfield's local wall time "YYYY-MM-DDTHH:MM". */
 export const whenSchema = (what: string) =>
-  z
-    .string({ error: `Enter the ${what}.` })
+  text({ error: `Enter the ${what}.` })
     .trim()
     .min(1, `Enter the ${what}.`)
     .transform((s, ctx): DepartAtInput => {
@@ -30,7 +30,7 @@ export const whenSchema = (what: string) =>
       return z.NEVER;
     });
 
-const notes = z.string({ error: 'Notes are text.' }).trim().max(1000, 'Use at most 1,000 characters.').default('');
+const notes = multilineText({ error: 'Notes are text.' }).trim().max(1000, 'Use at most 1,000 characters.').default('');
 const round = (v: number, step = 1) => Math.round(v / step) * step;
 
 /** An oil check in the person's units; `toStored` gives litres and °C. */
@@ -70,8 +70,7 @@ export function oilChangeSchema(u: DisplayUnits) {
     .object({
       changedAt: whenSchema('time of the oil change'),
       engineHours: numberIn('engine hours', 0, 100_000, ' h'),
-      oilGrade: z
-        .string({ error: 'Enter the oil grade.' })
+      oilGrade: text({ error: 'Enter the oil grade.' })
         .trim()
         .min(1, 'Enter the oil grade (e.g. 15W-50).')
         .max(40, 'Use at most 40 characters.'),

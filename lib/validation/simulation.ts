@@ -1,6 +1,7 @@
 // The simulate contract (CLI `npm run simulate`, POST /api/v1/simulations): one zod schema.
 // Every issue carries the path of its field (e.g. ["outside", 3, "tempC"]).
 import { z } from 'zod';
+import { text } from './text';
 
 export const MAX_OUTSIDE_POINTS = 10_000;
 export const MAX_OUTPUT_POINTS = 100_000;
@@ -41,8 +42,7 @@ function isIsoDateTime(v: string): boolean {
   return day.getUTCMonth() === m - 1 && day.getUTCDate() === d; // no 30 February
 }
 /** An ISO-8601 date-time string with a zone (Z or an offset); shared by other contracts. */
-export const isoDateTime = z
-  .string({ error: (iss) => (iss.input === undefined ? 'Required.' : `Must be an ISO-8601 date-time string, not ${describe(iss.input)}.`) })
+export const isoDateTime = text({ error: (iss) => (iss.input === undefined ? 'Required.' : `Must be an ISO-8601 date-time string, not ${describe(iss.input)}.`) })
   .refine(isIsoDateTime, {
     error: (iss) => `Must be an ISO-8601 date-time with a zone, e.g. "2025-01-15T18:00:00Z" (got ${describe(iss.input)}).`,
   });
@@ -86,7 +86,7 @@ const heater = z.strictObject({
   from: iso,
   to: iso,
   /** Free text for the caller's own use, e.g. "oil-pad". */
-  kind: z.string().max(40).optional(),
+  kind: text().max(40).optional(),
 });
 
 const ms = (s: string) => Date.parse(s);

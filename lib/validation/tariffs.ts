@@ -3,6 +3,7 @@
 // Rate Database). A flat price is one period everywhere. Safe to import in client components.
 import { z } from 'zod';
 import { numberIn } from './aircraft';
+import { text } from './text';
 
 export const MAX_PERIODS = 8;
 export const MONTHS = 12;
@@ -35,7 +36,7 @@ export function flatTariff(currency: string, pricePerKWh: number, name = 'Flat')
 }
 
 const periodSchema = z.object({
-  name: z.string({ error: 'Name the period.' }).trim().min(1, 'Name the period (e.g. Night).').max(40, 'Use at most 40 characters.'),
+  name: text({ error: 'Name the period.' }).trim().min(1, 'Name the period (e.g. Night).').max(40, 'Use at most 40 characters.'),
   pricePerKWh: numberIn('price per kWh', 0, 10),
 });
 
@@ -48,8 +49,7 @@ const scheduleSchema = (which: string) =>
 
 export const tariffSchema = z
   .object({
-    currency: z
-      .string({ error: 'Enter the currency.' })
+    currency: text({ error: 'Enter the currency.' })
       .trim()
       .toUpperCase()
       .regex(/^[A-Z]{3}$/, 'Use a three-letter currency code (e.g. EUR).'),

@@ -2,14 +2,15 @@
 import { z } from 'zod';
 import { ROLES } from '@/lib/auth/permissions';
 import { email, password } from './auth';
+import { text } from './text';
 
 /** A token as sent in a link: 32 random bytes, base64url. */
 export const TOKEN_RE = /^[A-Za-z0-9_-]{43}$/;
-export const tokenField = z.string({ error: 'The link is incomplete.' }).trim().regex(TOKEN_RE, 'The link is incomplete or damaged. Open it again from the e-mail.');
+export const tokenField = text({ error: 'The link is incomplete.' }).trim().regex(TOKEN_RE, 'The link is incomplete or damaged. Open it again from the e-mail.');
 
 /** A manager adds a user by e-mail; a temporary password is still accepted for older clients. */
 export const inviteUserSchema = z.object({
-  name: z.string().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.'),
+  name: text().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.'),
   email,
   role: z.enum(ROLES, { error: 'Choose a role.' }),
   temporaryPassword: password.optional(),
@@ -17,11 +18,11 @@ export const inviteUserSchema = z.object({
 export type InviteUserInput = z.infer<typeof inviteUserSchema>;
 
 const newPassword = z
-  .object({ password, confirm: z.string().max(200).optional() })
+  .object({ password, confirm: text().max(200).optional() })
   .refine((v) => v.confirm === undefined || v.confirm === v.password, { message: 'The two passwords differ.', path: ['confirm'] });
 
 export const acceptInviteSchema = z.intersection(
-  z.object({ token: tokenField, name: z.string().trim().min(1, 'Enter your name.').max(120, 'Use at most 120 characters.').optional() }),
+  z.object({ token: tokenField, name: text().trim().min(1, 'Enter your name.').max(120, 'Use at most 120 characters.').optional() }),
   newPassword,
 );
 

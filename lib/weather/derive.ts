@@ -70,6 +70,8 @@ export function toSoakInputs(hours: readonly ForecastHour[]): {
   outside: { atMs: number; tempC: number }[];
   wind: { atMs: number; mps: number }[];
   cloud: { atMs: number; fraction: number }[];
+  /** Dew point of the outside air (for frost on an airframe outside). */
+  dewPoint: { atMs: number; c: number }[];
 } {
   const seen = new Set<number>();
   const sorted = hours
@@ -81,6 +83,7 @@ export function toSoakInputs(hours: readonly ForecastHour[]): {
     outside: sorted.map(({ h, t }) => ({ atMs: t, tempC: h.tempC })),
     wind: sorted.map(({ h, t }) => ({ atMs: t, mps: h.windMps })),
     cloud: sorted.map(({ h, t }) => ({ atMs: t, fraction: h.cloudFraction })),
+    dewPoint: sorted.map(({ h, t }) => ({ atMs: t, c: h.dewPointC })),
   };
 }
 

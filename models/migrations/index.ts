@@ -4,6 +4,8 @@ import * as m002 from './002-forecasts';
 import * as m003 from './003-planning';
 import * as m004 from './004-logs-and-oil';
 import * as m005 from './005-alerts-mail';
+import * as m006 from './006-plan-unique';
+import * as m007 from './007-session-version';
 
 export interface Migration {
   name: string;
@@ -19,4 +21,6 @@ export const migrations: Migration[] = [
   { name: '003-planning', ...m003 },
   { name: '004-logs-and-oil', ...m004 },
   { name: '005-alerts-mail', ...m005 },
+  { name: '006-plan-unique', ...m006 },
+  { name: '007-session-version', ...m007 },
 ];

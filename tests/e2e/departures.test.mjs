@@ -94,8 +94,11 @@ test('a pilot sees aircraft read-only; an operator gets the profile form', async
   await pilot.page.goto(`${BASE}/aircraft`);
   await pilot.page.getByRole('link', { name: 'Q-SIPI' }).first().click();
   await pilot.page.getByRole('heading', { level: 1, name: 'Q-SIPI' }).waitFor();
-  assert.equal(await pilot.page.getByRole('button', { name: 'Save changes' }).count(), 0);
+  // The aircraft page opens on its upcoming departures; the profile is its own tab.
+  await pilot.page.getByRole('heading', { name: 'Upcoming departures' }).waitFor();
+  await pilot.page.getByRole('link', { name: 'Profile' }).click();
   await pilot.page.getByRole('heading', { name: 'Heaters' }).waitFor();
+  assert.equal(await pilot.page.getByRole('button', { name: 'Save changes' }).count(), 0);
   const denied = await pilot.page.goto(`${BASE}/aircraft/new`);
   assert.equal(denied.status(), 403);
   await pilot.context.close();
@@ -103,6 +106,9 @@ test('a pilot sees aircraft read-only; an operator gets the profile form', async
   const op = await signedInContext(browser, 'operator');
   await op.page.goto(`${BASE}/aircraft`);
   await op.page.getByRole('link', { name: 'Q-SIPI' }).first().click();
+  // Its departures first, each with its plan.
+  await op.page.getByRole('heading', { name: 'Upcoming departures' }).waitFor();
+  await op.page.getByRole('link', { name: 'Profile' }).click();
   await op.page.getByLabel('Registration').waitFor();
   assert.equal(await op.page.getByLabel('Registration').inputValue(), 'Q-SIPI');
   await op.page.getByRole('button', { name: 'Save changes' }).click();
@@ -129,3 +135,22 @@ for (const width of [1280, 1440, 1920]) {
     await context.close();
   });
 }
+
+test('a pilot changes the time of a departure they booked, and the list shows the new time', async () => {
+  const { context, page } = await signedInContext(browser, 'pilot');
+  const dep = new DeparturesPage(page);
+  await dep.open();
+  const date = localDay(12);
+  await dep.book({ registration: 'Q-LUMI', date, time: '07:15' });
+  await dep.status().getByText('Booked Q-LUMI').waitFor();
+  const row = dep.list().locator('tr').filter({ hasText: 'Q-LUMI' }).filter({ hasText: '07:15' }).first();
+  await row.getByRole('link', { name: /^Change/ }).click();
+  await page.getByRole('heading', { name: 'Change Q-LUMI' }).waitFor();
+  await page.getByLabel('Time', { exact: true }).fill('09:40');
+  await page.getByRole('button', { name: 'Save changes' }).click();
+  await page.getByRole('status').getByText(/Saved: Q-LUMI departs .* 09:40/).waitFor();
+  await page.getByRole('link', { name: 'Back to departures' }).click();
+  await dep.list().locator('tr').filter({ hasText: 'Q-LUMI' }).filter({ hasText: '09:40' }).first().waitFor();
+  assert.equal(await dep.list().locator('tr').filter({ hasText: 'Q-LUMI' }).filter({ hasText: '07:15' }).count(), 0);
+  await context.close();
+});

@@ -72,3 +72,21 @@ describe('the Morning board', () => {
     expect((await call(detail.GET as never, { params: { id: String(id) } })).status).toBe(404);
   });
 });
+
+describe('one switch-on time for a stored plan', () => {
+  it('keeps the plan (and its switch-on time) once the switch-on has come, instead of restarting it from the clock', async () => {
+    const me = await signInAs(DEMO.operator);
+    const { morningBoard } = await import('@/lib/data/plans');
+    const first = await morningBoard({ orgId: me.organizationId, refresh: 'never' });
+    const p = first.plans.find((x) => x.status === 'warming' && x.switchOnAt && Date.parse(x.switchOnAt) > Date.now() + 30 * 60_000);
+    expect(p).toBeTruthy();
+    const on = Date.parse(p!.switchOnAt!);
+    // Twenty and forty minutes after the switch-on time, every reader sees the same plan.
+    for (const after of [20, 40]) {
+      const later = await morningBoard({ orgId: me.organizationId, now: new Date(on + after * 60_000), refresh: 'never' });
+      const q = later.plans.find((x) => x.departureId === p!.departureId)!;
+      expect(q.switchOnAt).toBe(p!.switchOnAt);
+      expect(q.computedAt).toBe(p!.computedAt);
+    }
+  });
+});

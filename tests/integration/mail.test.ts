@@ -237,7 +237,12 @@ describe('the local capture', () => {
       expect(list.body.messages.map((m: any) => m.subject)).toContain('Test captured');
       expect(list.body.outbox.counts.sent).toBeGreaterThan(0);
       const detail = await call(one, { params: { id: String(rows[0].id) } });
-      expect(detail.body.message.raw).toContain('Subject: Test captured');
+      // The source is kept as received; a manager who is not the recipient of a reset-kind message is
+      // not shown it (it would carry the single-use link).
+      expect(rows[0].raw).toContain('Subject: Test captured');
+      expect(detail.body.message.text).toBe('Body of captured');
+      expect(detail.body.message.redacted).toBe(true);
+      expect(detail.body.message.raw).not.toContain('Subject: Test captured');
       await signInAs(DEMO.otherManager);
       expect((await call(GET)).body.messages.map((m: any) => m.subject)).not.toContain('Test captured');
       expect((await call(one, { params: { id: String(rows[0].id) } })).status).toBe(404);

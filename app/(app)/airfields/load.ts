@@ -27,5 +27,7 @@ export async function formContext(orgId: number) {
     ? [others.reduce((s, a) => s + a.latitude, 0) / others.length, others.reduce((s, a) => s + a.longitude, 0) / others.length]
     : undefined;
   const e = env();
-  return { timeZones: timeZoneNames(), defaultTimeZone, fallbackCenter: center, tileUrl: e.MAP_TILE_URL, tileAttribution: e.MAP_TILE_ATTRIBUTION };
+  // The organization's own airfields, named on the picker so a position can be placed by them.
+  const landmarks = others.map((a) => ({ id: a.id, name: a.name, ident: a.ident, latitude: a.latitude, longitude: a.longitude }));
+  return { timeZones: timeZoneNames(), defaultTimeZone, fallbackCenter: center, landmarks, tileUrl: e.MAP_TILE_URL, tileAttribution: e.MAP_TILE_ATTRIBUTION };
 }

@@ -42,7 +42,7 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
     listDepartures({ orgId: user.orgId, fromMs: nowMs - 6 * HOUR_MS, toMs: nowMs + 14 * 24 * HOUR_MS, pilotId: bookAny ? undefined : user.id }),
   ]);
   const plans = await plansForDepartures({ orgId: user.orgId, departures, now: new Date(nowMs) });
-  const readiness = Object.fromEntries(plans.map((p) => [p.departureId, <ReadinessCell key={p.departureId} plan={p} units={user.tempUnit} canConfirm={can(user.role, 'plans:manage')} />]));
+  const readiness = Object.fromEntries(plans.map((p) => [p.departureId, <ReadinessCell key={p.departureId} plan={p} units={user.tempUnit} nowMs={nowMs} />]));
   // The oil-too-cold warning: my own departures (as pilot) that will not be ready.
   // The banner warns about the coming morning (within 36 h); later days show it in their row.
   const tooCold = plans.filter((p) => p.pilot.id === user.id && (p.status === 'short' || p.status === 'unplanned') && Date.parse(p.departAt) < nowMs + 36 * HOUR_MS);

@@ -1,5 +1,6 @@
 'use client';
 import { useRouter } from 'next/navigation';
+import { signOut } from 'next-auth/react';
 import { useState } from 'react';
 import { Button } from '@/components/ui/primitives';
 import { SelectField, TextField } from '@/components/ui/Field';
@@ -52,7 +53,9 @@ export function PasswordForm() {
       setFields({});
       setCurrent('');
       setNew('');
-      setStatus('Password changed.');
+      // A new password ends every session of this account, this one too: sign in again with it.
+      setStatus('Password changed. Sign in again with the new password.');
+      await signOut({ callbackUrl: '/signin' });
     } else {
       setFields(r.fields);
       setStatus(r.message);

@@ -8,7 +8,9 @@ function messageFor(error: string | null | undefined): string {
   if (!error) return '';
   const m = /TooManyAttempts:(\d+)/.exec(error);
   if (m) {
-    const minutes = Math.max(1, Math.ceil(Number(m[1]) / 60));
+    const seconds = Number(m[1]);
+    if (seconds < 90) return `Several failed attempts on this account: wait ${seconds} second${seconds === 1 ? '' : 's'}, then try again.`;
+    const minutes = Math.ceil(seconds / 60);
     return `Too many failed attempts. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`;
   }
   // The same words whether or not the address has an account.

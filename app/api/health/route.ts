@@ -1,14 +1,18 @@
 import { NextResponse } from 'next/server';
-import { db } from '@/models';
+import { health } from '@/lib/health';
 
 export const dynamic = 'force-dynamic';
 
-/** 200 only when the database answers. Public, and says nothing but ok/unavailable. */
+/**
+ * Public. 200 while the database answers and its migrations are current (status 'degraded' when a part
+ * of this instance's background work could not start, e.g. the mail capture's port was taken); 503
+ * when the database is unreachable or migrations are pending. States and times only, no detail.
+ */
 export async function GET() {
   try {
-    await db().sequelize.query('SELECT 1');
-    return NextResponse.json({ status: 'ok' });
+    const { httpStatus, body } = await health();
+    return NextResponse.json(body, { status: httpStatus, headers: { 'cache-control': 'no-store' } });
   } catch {
-    return NextResponse.json({ status: 'unavailable' }, { status: 503 });
+    return NextResponse.json({ status: 'unavailable' }, { status: 503, headers: { 'cache-control': 'no-store' } });
   }
 }

@@ -135,6 +135,20 @@ describe('fakeForecastResponse: determinism', () => {
     expect(meanAbs(near, here)).toBeLessThan(meanAbs(far, here));
   });
 
+  it('a higher site is colder by the standard lapse rate, 6.5 K per km (ICAO standard atmosphere)', () => {
+    const low = series({ ...q, elevation: 100 }, now).map((p) => p.temp);
+    const high = series({ ...q, elevation: 600 }, now).map((p) => p.temp);
+    const meanDiff = low.reduce((s, v, i) => s + (v - high[i]), 0) / low.length;
+    expect(meanDiff).toBeCloseTo(3.25, 1);
+  });
+
+  it('a travelling system reaches sites 300 km apart east to west at different hours', () => {
+    const west = series({ ...q, forecast_days: 10 }, now).map((p) => p.temp);
+    const east = series({ ...q, longitude: q.longitude + 5, forecast_days: 10 }, now).map((p) => p.temp);
+    const coldestHour = (a: number[]) => a.indexOf(Math.min(...a));
+    expect(coldestHour(west)).not.toBe(coldestHour(east));
+  });
+
   it('stays physically consistent: dew point below temperature, cloud 0–100 %, wind ≥ 0', () => {
     for (const [lat, lon] of [
       [55.75, 37.6],

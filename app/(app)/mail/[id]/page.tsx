@@ -12,7 +12,7 @@ export const dynamic = 'force-dynamic';
 export default async function MailMessagePage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser('mail:view');
   const id = idParam(await params);
-  const message = await getCapturedMail({ orgId: user.orgId, id }).catch((e) => {
+  const message = await getCapturedMail({ orgId: user.orgId, id, viewerEmail: user.email }).catch((e) => {
     if (e instanceof NotFound) notFound();
     throw e;
   });

@@ -6,9 +6,11 @@ import { MAX_LOG_BYTES } from '@/lib/fit/csv';
  * The request body as a stream of byte chunks for the CSV reader (which counts bytes and stops at the
  * limit). A declared length over the limit is refused before anything is read.
  */
+export const LOG_TOO_LARGE = `The file is larger than the ${MAX_LOG_BYTES / 1024 / 1024} MB limit. Split the log or export only the cool-down.`;
+
 export function uploadStream(req: Request): AsyncIterable<Uint8Array> {
   const declared = Number(req.headers.get('content-length') ?? 0);
-  if (declared > MAX_LOG_BYTES) throw new TooLarge(`The file is larger than the ${MAX_LOG_BYTES / 1024 / 1024} MB limit. Split the log or export only the cool-down.`);
+  if (declared > MAX_LOG_BYTES) throw new TooLarge(LOG_TOO_LARGE);
   const body = req.body;
   return {
     async *[Symbol.asyncIterator]() {

@@ -1,7 +1,8 @@
+import { MAX_LOG_BYTES } from '@/lib/fit/csv';
 import { apiRoute, idParam } from '@/lib/api/route';
 import { previewLog } from '@/lib/data/logs';
 import { logUploadQuery } from '@/lib/validation/logs';
-import { uploadStream } from '../body';
+import { LOG_TOO_LARGE, uploadStream } from '../body';
 
 export const dynamic = 'force-dynamic';
 
