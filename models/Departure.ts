@@ -13,6 +13,8 @@ export class Departure extends Model<InferAttributes<Departure>, InferCreationAt
   declare departAt: Date;
   declare readyC: number;
   declare floorC: CreationOptional<number | null>;
+  /** Start window: ready from departAt through this many minutes; the heater stays on through it. */
+  declare holdMinutes: CreationOptional<number>;
   declare notes: CreationOptional<string>;
   declare cancelledAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -30,6 +32,7 @@ export function initDeparture(sequelize: Sequelize) {
       departAt: { type: DataTypes.DATE, allowNull: false },
       readyC: { type: DataTypes.FLOAT, allowNull: false },
       floorC: { type: DataTypes.FLOAT, allowNull: true },
+      holdMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
       notes: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },
       cancelledAt: { type: DataTypes.DATE, allowNull: true },
       createdAt: DataTypes.DATE,

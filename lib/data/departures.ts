@@ -26,6 +26,8 @@ export interface DepartureRecord {
   localDate: string;
   readyC: number;
   floorC: number | null;
+  /** Start window, minutes: ready from departAt through it; the heater stays on until just before start. */
+  holdMinutes: number;
   /** The engine class's ready temperature (the lowest allowed). */
   classReadyC: number;
   notes: string;
@@ -74,6 +76,7 @@ async function toRecords(rows: Departure[], orgId: number, transaction?: Transac
         localDate: localDateKey(localDateOf(zone, ms)),
         readyC: d.readyC,
         floorC: d.floorC ?? null,
+        holdMinutes: d.holdMinutes ?? 30,
         classReadyC: a.classDefaults.readyC,
         notes: d.notes ?? '',
         cancelled: d.cancelledAt != null,
@@ -233,9 +236,10 @@ export async function bookDeparture({ orgId, actor, input, now = new Date() }: {
     const departAtMs = resolveDepartAt(input.departAt, zoneOf(aircraft));
     const readyC = input.readyC ?? aircraft.classDefaults.readyC;
     const floorC = input.floorC ?? null;
+    const holdMinutes = input.holdMinutes ?? (await db().Organization.findByPk(orgId, { attributes: ['holdMinutes'], transaction }))?.holdMinutes ?? 30;
     await checkDeparture({ orgId, aircraft, departAtMs, readyC, floorC, now }, transaction);
     const row = await Departure.create(
-      { organizationId: orgId, aircraftId: aircraft.id, pilotId, bookedById: actor.id, departAt: new Date(departAtMs), readyC, floorC, notes: input.notes },
+      { organizationId: orgId, aircraftId: aircraft.id, pilotId, bookedById: actor.id, departAt: new Date(departAtMs), readyC, floorC, holdMinutes, notes: input.notes },
       { transaction },
     );
     return getDeparture({ orgId, departureId: row.id, transaction });
@@ -284,6 +288,7 @@ export async function updateDeparture({
     row.departAt = new Date(departAtMs);
     row.readyC = readyC;
     row.floorC = floorC;
+    if (patch.holdMinutes !== undefined) row.holdMinutes = patch.holdMinutes;
     if (patch.notes !== undefined) row.notes = patch.notes;
     await row.save({ transaction });
     return getDeparture({ orgId, departureId: row.id, transaction });

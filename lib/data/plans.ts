@@ -2,7 +2,7 @@ import 'server-only';
 import crypto from 'node:crypto';
 import { db } from '@/models';
 import { NotFound } from '@/lib/api/errors';
-import { planDeparture } from '@/lib/planner';
+import { planDeparture, windowMinimum } from '@/lib/planner';
 import type { PlanResult } from '@/lib/planner/types';
 import { simulate } from '@/lib/thermal';
 import { withHeater } from '@/lib/planner/model';
@@ -31,6 +31,10 @@ export interface PlanView {
   departAt: string;
   readyC: number;
   floorC: number | null;
+  /** Start window, minutes: leave the heater on until just before start; unplug before start. */
+  holdMinutes: number;
+  /** The start window as planned: until when, and the lowest oil (and engine mass) over it. */
+  hold: { until: string; minOilC: number; minEngineC: number | null; heaterOn: boolean } | null;
   notes: string;
   aircraft: { id: number; registration: string; typeLabel: string; engineClassLabel: string; coverOnByDefault: boolean };
   pilot: { id: number; name: string };
@@ -74,7 +78,7 @@ function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
   // Prices from before the earliest possible switch-on (now, or the soak start) to after departure.
   const startMs = Math.min(ctx.now.getTime(), d.departAtMs - MAX_SOAK_HOURS * 3_600_000) - 3_600_000;
   return {
-    departure: { id: d.id, departAtMs: d.departAtMs, readyC: d.readyC, floorC: d.floorC },
+    departure: { id: d.id, departAtMs: d.departAtMs, readyC: d.readyC, floorC: d.floorC, holdMinutes: d.holdMinutes },
     aircraft: {
       engineClass: d.aircraft.engineClass,
       thermal: d.aircraft.thermal,
@@ -86,7 +90,7 @@ function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
     shelter: d.aircraft.shelter,
     site: { lat: af.latitude, lon: af.longitude },
     hours: fc.hours,
-    tariff: tariffPeriodsBetween({ tariff, timeZone: af.timeZone, fromMs: startMs, toMs: d.departAtMs + 3_600_000 }).map((p) => ({
+    tariff: tariffPeriodsBetween({ tariff, timeZone: af.timeZone, fromMs: startMs, toMs: d.departAtMs + (d.holdMinutes + 60) * 60_000 }).map((p) => ({
       fromMs: p.fromMs,
       toMs: p.toMs,
       pricePerKWh: p.pricePerKWh,
@@ -115,7 +119,10 @@ function compute(r: PlanRecords, nowMs: number): Computed {
   if (!req) {
     const s = simulate(model, { atMs: [r.departure.departAtMs] });
     const free = s.oilC[0];
-    return { status: free >= r.departure.readyC ? 'ready' : 'unplanned', result: null, freeOilC: free };
+    // Ready without heat only if the oil holds through the start window too.
+    const dep = r.departure.departAtMs;
+    const w = windowMinimum(model, dep, dep + (r.departure.holdMinutes ?? 0) * 60_000);
+    return { status: w.oilC >= r.departure.readyC ? 'ready' : 'unplanned', result: null, freeOilC: free };
   }
   const result = planDeparture(req);
   return { status: result.status, result, freeOilC: result.freeOilAtDepartureC };
@@ -147,6 +154,8 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     departAt: d.departAt,
     readyC: d.readyC,
     floorC: d.floorC,
+    holdMinutes: d.holdMinutes,
+    hold: r?.hold ? { until: iso(r.hold.untilMs)!, minOilC: r.hold.minOilC, minEngineC: r.hold.minEngineC ?? null, heaterOn: r.hold.heaterOn } : null,
     notes: d.notes,
     aircraft: { id: d.aircraft.id, registration: d.aircraft.registration, typeLabel: d.aircraft.typeLabel, engineClassLabel: d.aircraft.engineClassLabel, coverOnByDefault: d.aircraft.coverOnByDefault },
     pilot: d.pilot,

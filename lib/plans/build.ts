@@ -15,7 +15,7 @@ export const AFTER_DEPARTURE_HOURS = 1.5;
 export type HeaterControl = 'timer' | 'relay' | 'manual';
 
 export interface PlanRecords {
-  departure: { id: number; departAtMs: number; readyC: number; floorC: number | null };
+  departure: { id: number; departAtMs: number; readyC: number; floorC: number | null; /** Start window, minutes (default 0). */ holdMinutes?: number };
   aircraft: {
     engineClass: string;
     thermal: {
@@ -78,7 +78,8 @@ export function soakModelFor(r: PlanRecords): SoakModel {
         };
   return {
     startMs,
-    endMs: dep + AFTER_DEPARTURE_HOURS * HOUR,
+    // On past departure through the start window and a little beyond, so the chart shows the hold.
+    endMs: dep + Math.max(AFTER_DEPARTURE_HOURS * HOUR, ((r.departure.holdMinutes ?? 0) + 30) * 60_000),
     outside: inputs.outside,
     wind: inputs.wind,
     cloud: inputs.cloud,
@@ -109,5 +110,6 @@ export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelF
     mode: modeFor(heater.control),
     nowMs,
     forecastIssuedAtMs: r.forecastIssuedAtMs ?? nowMs,
+    holdMinutes: r.departure.holdMinutes ?? 0,
   };
 }

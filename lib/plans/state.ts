@@ -100,3 +100,15 @@ export function sameLocalDay(aMs: number, bMs: number, zone: string): boolean {
 export function whenLabel(ms: number, zone: string, nowMs: number): string {
   return sameLocalDay(ms, nowMs, zone) ? formatTime(ms, zone) : formatDayTime(ms, zone);
 }
+
+/** What the pilot does at the end of the start window: the heater stays on until just before start. */
+export const HOLD_ADVICE = 'Leave on until just before start; unplug before start.';
+
+/**
+ * The start window in one line when the plan keeps the heater on past departure: "Ready through 08:30:
+ * leave on until just before start; unplug before start." Null without a hold.
+ */
+export function holdLine(p: { hold: { until: string; heaterOn: boolean } | null; holdMinutes?: number }, zone: string, nowMs: number): string | null {
+  if (!p.hold || !p.hold.heaterOn) return null;
+  return `Ready through ${whenLabel(Date.parse(p.hold.until), zone, nowMs)}${p.holdMinutes ? ` (${p.holdMinutes} min start window)` : ''}: ${HOLD_ADVICE.charAt(0).toLowerCase()}${HOLD_ADVICE.slice(1)}`;
+}

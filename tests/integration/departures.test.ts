@@ -157,6 +157,30 @@ describe('booking', () => {
     expect(ok.body.departure).toMatchObject({ readyC: 25, floorC: 5, classReadyC: 15 });
   });
 
+  it('the start window: new departures take the organization default (30 min), 0–120 via POST and PATCH, else 422 naming holdMinutes', async () => {
+    await signInAs(DEMO.operator);
+    const id = await aircraftId('Q-ROUTA');
+    const made = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(15)}T08:00` } });
+    expect(made.status).toBe(201);
+    expect(made.body.departure.holdMinutes).toBe(30);
+    const depId = made.body.departure.id;
+    for (const bad of [121, -1, 2.5, 'x']) {
+      const r = await call(one.PATCH as never, { method: 'PATCH', body: { holdMinutes: bad }, params: { id: String(depId) } });
+      expect(r.status).toBe(422);
+      expect(r.body.fields[0].field).toBe('holdMinutes');
+    }
+    const zero = await call(one.PATCH as never, { method: 'PATCH', body: { holdMinutes: 0 }, params: { id: String(depId) } });
+    expect(zero.status).toBe(200);
+    expect(zero.body.departure.holdMinutes).toBe(0);
+    const max = await call(one.PATCH as never, { method: 'PATCH', body: { holdMinutes: '120' }, params: { id: String(depId) } });
+    expect(max.body.departure.holdMinutes).toBe(120);
+    const own = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(17)}T08:00`, holdMinutes: 45 } });
+    expect(own.body.departure.holdMinutes).toBe(45);
+    const tooLong = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(19)}T08:00`, holdMinutes: 500 } });
+    expect(tooLong.status).toBe(422);
+    expect(tooLong.body.fields[0].field).toBe('holdMinutes');
+  });
+
   it('bad input is 422 naming the field; a time in the past or too far ahead is 422 on departAt', async () => {
     await signInAs(DEMO.pilot);
     const none = await call(list.POST as never, { method: 'POST', body: { departAt: 'tomorrow', readyC: 'warm' } });

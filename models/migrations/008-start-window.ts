@@ -1,0 +1,13 @@
+import { DataTypes, type QueryInterface } from 'sequelize';
+
+// The start window: a departure is ready from its time through a hold (the heater stays on until just
+// before start). The organization's default for new bookings, and each departure's own (0–120 min).
+export async function up({ context: q }: { context: QueryInterface }) {
+  await q.addColumn('organizations', 'holdMinutes', { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 });
+  await q.addColumn('departures', 'holdMinutes', { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 });
+}
+
+export async function down({ context: q }: { context: QueryInterface }) {
+  await q.removeColumn('departures', 'holdMinutes');
+  await q.removeColumn('organizations', 'holdMinutes');
+}
