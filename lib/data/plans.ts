@@ -62,6 +62,8 @@ export interface PlanView {
   /** Frost on the airframe before departure (aircraft outside only; null under a roof or without a forecast). */
   frost: { likely: boolean; hours: number; from: string | null; to: string | null } | null;
   problem?: string;
+  /** Heater set-ups that mislead (a tank pad alone on a dry sump), with a suggestion. */
+  warnings: { code: string; text: string; suggestion: string }[];
 }
 
 interface Context {
@@ -85,6 +87,7 @@ function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
       coverOnByDefault: d.aircraft.coverOnByDefault,
       lastShutdownAtMs: d.aircraft.lastShutdownAt ? Date.parse(d.aircraft.lastShutdownAt) : null,
       lastShutdownOilC: d.aircraft.lastShutdownOilC,
+      engineReadyC: d.aircraft.engineReadyC,
     },
     heaters: d.aircraft.heaters.map((h) => ({ kind: h.kind, powerW: h.powerW, node: h.node, control: h.control, slotMinutes: h.slotMinutes })),
     shelter: d.aircraft.shelter,
@@ -189,6 +192,7 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     computedAt: (plan?.computedAt ?? ctx.now).toISOString(),
     forecast: fc ? { fetchedAt: fc.fetchedAt ? new Date(fc.fetchedAt).toISOString() : null, stale: !!fc.lastErrorKind } : null,
     frost: frostOf(d, fc),
+    warnings: d.aircraft.heaterWarnings ?? [],
   };
 }
 

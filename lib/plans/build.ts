@@ -2,7 +2,7 @@
 // No database, network or clock: the caller passes `nowMs` and the forecast hours.
 import type { ForecastHour } from '@/lib/weather/types';
 import { toSoakInputs } from '@/lib/weather/derive';
-import { ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
+import { ENGINE_CLASSES, engineThresholdFor, type EngineClassId } from '@/lib/thermal/presets';
 import { outsideAt, type SoakModel } from '@/lib/thermal';
 import type { PlanMode, PlanRequest, TariffPeriod } from '@/lib/planner/types';
 
@@ -27,6 +27,8 @@ export interface PlanRecords {
     coverOnByDefault: boolean;
     lastShutdownAtMs: number | null;
     lastShutdownOilC: number | null;
+    /** The aircraft's engine-mass threshold, °C (null or absent: the class's, estimate). */
+    engineReadyC?: number | null;
   };
   heaters: { kind: string; powerW: number; node: 'oil' | 'engine'; control: HeaterControl; slotMinutes: number }[];
   shelter: { kind: string; heatCapacityJPerK: number; lossWPerK: number; setpointC: number | null; heatingPowerW: number | null; solarApertureM2: number } | null;
@@ -111,5 +113,8 @@ export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelF
     nowMs,
     forecastIssuedAtMs: r.forecastIssuedAtMs ?? nowMs,
     holdMinutes: r.departure.holdMinutes ?? 0,
+    // The whole engine: the engine mass too (two-node models), at the aircraft's or the class's
+    // threshold; for a dry sump the engine-side oil lies in the engine node, so at least readyC.
+    ...(model.engine ? { engineReadyC: engineThresholdFor(r.aircraft.engineClass, r.departure.readyC, r.aircraft.engineReadyC) } : {}),
   };
 }

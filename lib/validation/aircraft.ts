@@ -143,6 +143,8 @@ const pilotIdsSchema = z
   .transform((ids) => [...new Set(ids)]);
 
 const shutdownOilSchema = clearableNumberIn('oil temperature at shutdown', -60, 160, ' °C');
+/** The aircraft's engine-mass threshold (crankcase and cylinders), °C; empty: the engine class's estimate. */
+const engineReadySchema = clearableNumberIn('engine-mass ready temperature', -40, 60, ' °C');
 const shutdownAtSchema = z.preprocess((v) => (v === '' ? null : v), isoInstant('last shutdown time').nullable().optional());
 
 const shelterIdSchema = z.preprocess(
@@ -164,6 +166,7 @@ export const aircraftCreateSchema = z.object({
   pilotIds: pilotIdsSchema.default([]),
   lastShutdownAt: shutdownAtSchema,
   lastShutdownOilC: shutdownOilSchema,
+  engineReadyC: engineReadySchema,
 });
 export type AircraftCreate = z.infer<typeof aircraftCreateSchema>;
 export type AircraftCreateInput = z.input<typeof aircraftCreateSchema>;
@@ -186,6 +189,7 @@ export const aircraftUpdateSchema = z
     pilotIds: pilotIdsSchema.optional(),
     lastShutdownAt: shutdownAtSchema,
     lastShutdownOilC: shutdownOilSchema,
+    engineReadyC: engineReadySchema,
     /** false: bring an archived aircraft back. */
     archived: z.boolean().optional(),
   })
@@ -202,5 +206,5 @@ export const aircraftListQuery = z.object({
 export function classDefaults(engineClass: string) {
   const p = ENGINE_CLASSES[engineClass as EngineClassId];
   if (!p) return null;
-  return { label: p.label, oilL: p.oilL, readyC: p.readyC, shutdownOilC: p.shutdownOilC, heaters: p.heaters };
+  return { label: p.label, oilL: p.oilL, readyC: p.readyC, engineReadyC: p.engineReadyC, readinessOil: p.readinessOil, shutdownOilC: p.shutdownOilC, heaters: p.heaters };
 }

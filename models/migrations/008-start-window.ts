@@ -5,9 +5,12 @@ import { DataTypes, type QueryInterface } from 'sequelize';
 export async function up({ context: q }: { context: QueryInterface }) {
   await q.addColumn('organizations', 'holdMinutes', { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 });
   await q.addColumn('departures', 'holdMinutes', { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 });
+  // The whole engine: the aircraft's own engine-mass threshold, °C (null: the engine class's, an estimate).
+  await q.addColumn('aircraft', 'engineReadyC', { type: DataTypes.FLOAT, allowNull: true });
 }
 
 export async function down({ context: q }: { context: QueryInterface }) {
+  await q.removeColumn('aircraft', 'engineReadyC');
   await q.removeColumn('departures', 'holdMinutes');
   await q.removeColumn('organizations', 'holdMinutes');
 }
