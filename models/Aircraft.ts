@@ -27,6 +27,10 @@ export class Aircraft extends Model<InferAttributes<Aircraft>, InferCreationAttr
   declare lastShutdownOilC: CreationOptional<number | null>;
   /** Engine-mass threshold, °C; null: the engine class's (estimate). */
   declare engineReadyC: CreationOptional<number | null>;
+  /** The maker's rule from the aircraft's manual; null: the engine class's (estimate). */
+  declare preheatBelowC: CreationOptional<number | null>;
+  declare preheatSoakHours: CreationOptional<number | null>;
+  declare minStartOilC: CreationOptional<number | null>;
   declare archivedAt: CreationOptional<Date | null>;
   /** Oil change due after this many engine hours since the last change (null: not set). */
   declare oilChangeIntervalHours: CreationOptional<number | null>;
@@ -51,6 +55,9 @@ export function initAircraft(sequelize: Sequelize) {
       lastShutdownAt: { type: DataTypes.DATE, allowNull: true },
       lastShutdownOilC: { type: DataTypes.FLOAT, allowNull: true },
       engineReadyC: { type: DataTypes.FLOAT, allowNull: true },
+      preheatBelowC: { type: DataTypes.FLOAT, allowNull: true },
+      preheatSoakHours: { type: DataTypes.FLOAT, allowNull: true },
+      minStartOilC: { type: DataTypes.FLOAT, allowNull: true },
       archivedAt: { type: DataTypes.DATE, allowNull: true },
       oilChangeIntervalHours: { type: DataTypes.FLOAT, allowNull: true },
       oilChangeIntervalMonths: { type: DataTypes.INTEGER, allowNull: true },

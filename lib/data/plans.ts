@@ -20,6 +20,8 @@ import type { InferCreationAttributes } from 'sequelize';
 
 import { worstReadiness, type Readiness } from '@/lib/plans/state';
 import { frostRisk } from '@/lib/plans/frost';
+import { makerVerdict } from '@/lib/plans/maker-rule';
+import { ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
 export type { Readiness };
 
 /** Plans are recomputed at most this often for the same inputs (the clock moves the earliest switch-on). */
@@ -88,6 +90,7 @@ function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
       lastShutdownAtMs: d.aircraft.lastShutdownAt ? Date.parse(d.aircraft.lastShutdownAt) : null,
       lastShutdownOilC: d.aircraft.lastShutdownOilC,
       engineReadyC: d.aircraft.engineReadyC,
+      makerRule: d.aircraft.makerRule,
     },
     heaters: d.aircraft.heaters.map((h) => ({ kind: h.kind, powerW: h.powerW, node: h.node, control: h.control, slotMinutes: h.slotMinutes })),
     shelter: d.aircraft.shelter,
@@ -118,6 +121,13 @@ interface Computed {
 
 function compute(r: PlanRecords, nowMs: number): Computed {
   const model = soakModelFor(r);
+  // The maker's rule first: a departure that meets it unheated needs no heat (no plan, no warning).
+  const rule = r.aircraft.makerRule;
+  if (rule) {
+    const startOil = ENGINE_CLASSES[r.aircraft.engineClass as EngineClassId]?.readinessOil ?? 'oil';
+    const v = makerVerdict(model, rule, { departureMs: r.departure.departAtMs, holdMinutes: r.departure.holdMinutes, startOil });
+    if (v.noHeatNeeded) return { status: 'no-heat', result: null, freeOilC: simulate(model, { atMs: [r.departure.departAtMs] }).oilC[0] };
+  }
   const req = planRequestFor(r, Math.floor(nowMs / NOW_STEP_MS) * NOW_STEP_MS, model);
   if (!req) {
     const s = simulate(model, { atMs: [r.departure.departAtMs] });
@@ -133,6 +143,8 @@ function compute(r: PlanRecords, nowMs: number): Computed {
 
 function summaryOf(status: Readiness, v: { heater: PlanView['heater']; fix: PlanView['fix'] }): string {
   switch (status) {
+    case 'no-heat':
+      return 'No heat needed by the engine maker’s rule (estimate: follow the manual)';
     case 'ready':
       return 'Warm enough without heat';
     case 'warming':
@@ -310,7 +322,7 @@ export async function morningBoard({ orgId, now = new Date(), airfieldId, refres
     (t, p) => ({ energyKWh: t.energyKWh + p.energyKWh, cost: t.cost + (p.cost ?? 0) }),
     { energyKWh: 0, cost: 0 },
   );
-  const counts = { ready: 0, warming: 0, short: 0, unplanned: 0 } as Record<Readiness, number>;
+  const counts = { 'no-heat': 0, ready: 0, warming: 0, short: 0, unplanned: 0 } as Record<Readiness, number>;
   for (const p of plans) counts[p.status]++;
   return { generatedAt: now.toISOString(), window: { from: iso(w.fromMs)!, to: iso(w.toMs)! }, plans, totals, counts };
 }
@@ -371,7 +383,7 @@ export async function readinessByAirfield({ orgId, now = new Date(), refresh = '
   const out = new Map<number, { readiness: Readiness; departures: number; counts: Record<Readiness, number> }>();
   for (const p of board.plans) {
     if (!p.airfield) continue;
-    const cur = out.get(p.airfield.id) ?? { readiness: p.status, departures: 0, counts: { ready: 0, warming: 0, short: 0, unplanned: 0 } };
+    const cur = out.get(p.airfield.id) ?? { readiness: p.status, departures: 0, counts: { 'no-heat': 0, ready: 0, warming: 0, short: 0, unplanned: 0 } };
     cur.readiness = worstReadiness([cur.readiness, p.status])!;
     cur.departures++;
     cur.counts[p.status]++;

@@ -29,6 +29,8 @@ export interface PlanRecords {
     lastShutdownOilC: number | null;
     /** The aircraft's engine-mass threshold, °C (null or absent: the class's, estimate). */
     engineReadyC?: number | null;
+    /** The maker's rule in force (the aircraft's figures, else the class's estimate); absent: none. */
+    makerRule?: { preheatBelowC: number; soakHours: number; minStartOilC: number; estimate: boolean } | null;
   };
   heaters: { kind: string; powerW: number; node: 'oil' | 'engine'; control: HeaterControl; slotMinutes: number }[];
   shelter: { kind: string; heatCapacityJPerK: number; lossWPerK: number; setpointC: number | null; heatingPowerW: number | null; solarApertureM2: number } | null;

@@ -60,7 +60,19 @@ export interface EngineClassPreset {
    * the "oil" node is the tank and its oil. So the ready temperature applies to the engine node too.
    */
   readinessOil: 'oil' | 'engine';
+  /**
+   * The maker's rule for the class (generic, estimate; an aircraft takes its own manual's figures):
+   * preheat is required when the engine has soaked below preheatBelowC for soakHours, and the oil must
+   * be at least minStartOilC for start. A departure that meets both unheated needs no heat.
+   */
+  makerRule: MakerRule;
   oilConsumptionLPerH: number;
+}
+
+export interface MakerRule {
+  preheatBelowC: number;
+  soakHours: number;
+  minStartOilC: number;
 }
 
 /** Oil heat capacity, J/K, at the soak's mean temperature. */
@@ -96,6 +108,7 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     // this figure is the metal's own floor below that (estimate).
     engineReadyC: 10,
     readinessOil: 'engine',
+    makerRule: { preheatBelowC: -10, soakHours: 2, minStartOilC: -10 }, // estimate
     oilConsumptionLPerH: 0.03, // estimate
   },
   'ac-wetsump-4': {
@@ -124,6 +137,8 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     readyC: 15, // common practice: keep oil at or above about 13–16 °C (55–60 °F)
     engineReadyC: 5, // estimate: crankcase and cylinders above freezing with margin
     readinessOil: 'oil',
+    // Estimate (from memory, the usual figure of cold-weather guidance for air-cooled engines: preheat below about −6 °C / 20 °F).
+    makerRule: { preheatBelowC: -6, soakHours: 2, minStartOilC: -6 },
     oilConsumptionLPerH: 0.1, // estimate
   },
   'ac-wetsump-6': {
@@ -151,6 +166,7 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     readyC: 15, // common practice: 13–16 °C (55–60 °F)
     engineReadyC: 5, // estimate, as the four
     readinessOil: 'oil',
+    makerRule: { preheatBelowC: -6, soakHours: 2, minStartOilC: -6 }, // estimate, as the four
     oilConsumptionLPerH: 0.15, // estimate
   },
 };

@@ -145,6 +145,12 @@ const pilotIdsSchema = z
 const shutdownOilSchema = clearableNumberIn('oil temperature at shutdown', -60, 160, ' °C');
 /** The aircraft's engine-mass threshold (crankcase and cylinders), °C; empty: the engine class's estimate. */
 const engineReadySchema = clearableNumberIn('engine-mass ready temperature', -40, 60, ' °C');
+const makerFields = {
+  /** The maker's rule from the aircraft's own manual (empty: the engine class's estimate). */
+  preheatBelowC: clearableNumberIn('preheat-below temperature', -40, 60, ' °C'),
+  preheatSoakHours: clearableNumberIn('soak time', 0, 48, ' h'),
+  minStartOilC: clearableNumberIn('minimum oil temperature for start', -40, 60, ' °C'),
+};
 const shutdownAtSchema = z.preprocess((v) => (v === '' ? null : v), isoInstant('last shutdown time').nullable().optional());
 
 const shelterIdSchema = z.preprocess(
@@ -167,6 +173,7 @@ export const aircraftCreateSchema = z.object({
   lastShutdownAt: shutdownAtSchema,
   lastShutdownOilC: shutdownOilSchema,
   engineReadyC: engineReadySchema,
+  ...makerFields,
 });
 export type AircraftCreate = z.infer<typeof aircraftCreateSchema>;
 export type AircraftCreateInput = z.input<typeof aircraftCreateSchema>;
@@ -190,6 +197,7 @@ export const aircraftUpdateSchema = z
     lastShutdownAt: shutdownAtSchema,
     lastShutdownOilC: shutdownOilSchema,
     engineReadyC: engineReadySchema,
+    ...makerFields,
     /** false: bring an archived aircraft back. */
     archived: z.boolean().optional(),
   })
