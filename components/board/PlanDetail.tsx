@@ -32,6 +32,17 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
   const zone = p.airfield?.timeZone ?? 'UTC';
   return (
     <div className="space-y-4">
+      {p.readyLowered ? (
+        <Notice tone="caution" title="Ready temperature lowered">
+          Lowered to the aircraft’s figure ({formatTemp(p.readyC, units, 0)}) by {p.readyLowered.by} on {formatDayTime(Date.parse(p.readyLowered.at), zone)}. Follow the engine manufacturer’s cold-weather instructions; they override
+          Thawline’s estimates.
+        </Notice>
+      ) : null}
+      {(p.warnings ?? []).map((w) => (
+        <Notice key={w.code} tone="caution" title="Heater warning">
+          {w.text} Suggestion: {w.suggestion}
+        </Notice>
+      ))}
       {data.series.length ? (
         <SoakChart series={data.series} readyC={p.readyC} floorC={p.floorC ?? undefined} heaterBands={p.heaterOn} departAt={p.departAt} holdUntil={p.hold?.until} timeZone={zone} units={units} />
       ) : null}

@@ -93,7 +93,11 @@ export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: Departure
         </FieldShell>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="edit-readyC" label={`Ready temperature (${tempLabel(tempUnit)})`} inputMode="decimal" value={form.readyC} onChange={set('readyC')} error={fields.readyC} hint={`At least the engine class's ${shown(d.classReadyC, tempUnit)} ${tempLabel(tempUnit)}.`} />
+        <TextField id="edit-readyC" label={`Ready temperature (${tempLabel(tempUnit)})`} inputMode="decimal" value={form.readyC} onChange={set('readyC')} error={fields.readyC} hint={
+            d.lowestReadyC !== null
+              ? `At least the engine class's ${shown(d.classReadyC, tempUnit)} ${tempLabel(tempUnit)}; an operator may lower it to the aircraft's ${shown(d.lowestReadyC, tempUnit)} ${tempLabel(tempUnit)} (recorded; follow the engine manual).${d.readyLowered ? ` Lowered by ${d.readyLowered.by}.` : ''}`
+              : `At least the engine class's ${shown(d.classReadyC, tempUnit)} ${tempLabel(tempUnit)}.`
+          } />
         <TextField id="edit-floorC" label={`Overnight floor (${tempLabel(tempUnit)}, optional)`} inputMode="decimal" value={form.floorC} onChange={set('floorC')} error={fields.floorC} hint="Empty: no floor." />
         <TextField id="edit-holdMinutes" label="Start window (minutes, 0–120)" inputMode="numeric" value={form.holdMinutes} onChange={set('holdMinutes')} error={fields.holdMinutes} hint="Ready through this window after the departure time; the heater stays on until just before start. Unplug before start." />
       </div>

@@ -64,6 +64,8 @@ export interface PlanView {
   /** Frost on the airframe before departure (aircraft outside only; null under a roof or without a forecast). */
   frost: { likely: boolean; hours: number; from: string | null; to: string | null } | null;
   problem?: string;
+  /** The ready temperature was lowered to the aircraft's figure: who and when (the caution to follow the manual goes with it). */
+  readyLowered: { by: string; at: string } | null;
   /** Heater set-ups that mislead (a tank pad alone on a dry sump), with a suggestion. */
   warnings: { code: string; text: string; suggestion: string }[];
 }
@@ -205,6 +207,7 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     forecast: fc ? { fetchedAt: fc.fetchedAt ? new Date(fc.fetchedAt).toISOString() : null, stale: !!fc.lastErrorKind } : null,
     frost: frostOf(d, fc),
     warnings: d.aircraft.heaterWarnings ?? [],
+    readyLowered: d.readyLowered ?? null,
   };
 }
 

@@ -35,7 +35,7 @@ export const departAtSchema = text({ error: 'Enter the departure date and time.'
     return z.NEVER;
   });
 
-const readyC = optionalNumberIn('ready temperature', -10, 100, ' °C');
+const readyC = optionalNumberIn('ready temperature', -40, 60, ' °C');
 /** The start window, minutes: the oil is at ready from departure through it, the heater on until just before start. */
 export const MAX_HOLD_MINUTES = 120;
 const holdMinutes = z.preprocess(
@@ -54,7 +54,10 @@ export const departureCreateSchema = z.object({
   /** Who flies; defaults to the person booking. Only roles that book for anyone may name someone else. */
   pilotId: z.preprocess(toNumberInput, z.number({ error: 'Choose a pilot.' }).int().positive().optional()),
   departAt: departAtSchema,
-  /** Oil temperature needed at departure, °C; defaults to the engine class's, may only be raised. */
+  /**
+   * Oil temperature needed at departure, °C; defaults to the engine class's. Raised freely; an operator
+   * may lower it to the aircraft's own figure (the maker's minimum oil for start), recorded with who and when.
+   */
   readyC,
   /** Optional overnight floor, °C: the oil is kept at or above it all night. */
   floorC: clearableNumberIn('overnight floor', -40, 60, ' °C'),
