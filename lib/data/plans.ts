@@ -6,7 +6,7 @@ import { planDeparture, windowMinimum } from '@/lib/planner';
 import type { PlanResult } from '@/lib/planner/types';
 import { simulate } from '@/lib/thermal';
 import { withHeater } from '@/lib/planner/model';
-import { MAX_SOAK_HOURS, planRequestFor, primaryHeater, soakModelFor, type PlanRecords } from '@/lib/plans/build';
+import { MAX_SOAK_HOURS, plannedHeaterFor, planRequestFor, primaryHeater, soakModelFor, type PlanRecords } from '@/lib/plans/build';
 import { forecastFor } from './forecasts';
 import { getDeparture, listDepartures, type Actor, type DepartureRecord } from './departures';
 import { tariffPeriodsBetween, tariffsFor, type TariffRecord } from './tariffs';
@@ -352,9 +352,9 @@ export async function planDetail({ orgId, departureId, actor, now = new Date() }
   let series: { at: string; outsideC: number; shelterC: number; oilC: number; engineC: number | null }[] = [];
   if (rec) {
     const model = soakModelFor(rec);
-    const heater = primaryHeater(rec.heaters);
+    const heater = plannedHeaterFor(rec, model);
     const on = view.heaterOn.map((i) => ({ fromMs: Date.parse(i.from), toMs: Date.parse(i.to) }));
-    const m = heater && on.length ? withHeater(model, { node: heater.node === 'engine' && !model.engine ? 'oil' : heater.node, powerW: heater.powerW }, on) : model;
+    const m = heater && on.length ? withHeater(model, heater, on) : model;
     const s = simulate(m, { outputEveryMinutes: 10 });
     series = Array.from(s.atMs, (t, i) => ({
       at: iso(t)!,

@@ -11,6 +11,12 @@ export type PlanMode = 'least-cost' | 'single-start';
  */
 export type PlanStatus = 'ready' | 'warming' | 'short';
 
+export interface PlannedHeater {
+  node: NodeName;
+  powerW: number;
+  parts?: readonly { node: NodeName; powerW: number }[];
+}
+
 /** One period of a time-of-use tariff: the price holds over [fromMs, toMs). */
 export interface TariffPeriod {
   fromMs: number;
@@ -25,7 +31,11 @@ export interface PlanRequest {
   readyC: number;
   /** The overnight floor: the oil must not fall below it from the earliest switch-on to departure. */
   floorC?: number;
-  heater: { node: NodeName; powerW: number };
+  /**
+   * The heater the plan switches. Several heaters on one control are one schedule: give `parts`
+   * (each on its own node; their powers add) and `powerW` = their sum, `node` = the first part's.
+   */
+  heater: PlannedHeater;
   /** Time-of-use periods covering [earliest switch-on, departure]; without them the price is flat. */
   tariff?: readonly TariffPeriod[];
   /** A flat price, used when no tariff is given (cost is then reported); without either, cost is not reported. */

@@ -4,7 +4,8 @@ import type { ForecastHour } from '@/lib/weather/types';
 import { toSoakInputs } from '@/lib/weather/derive';
 import { ENGINE_CLASSES, engineThresholdFor, type EngineClassId } from '@/lib/thermal/presets';
 import { outsideAt, type SoakModel } from '@/lib/thermal';
-import type { PlanMode, PlanRequest, TariffPeriod } from '@/lib/planner/types';
+import type { PlanMode, PlannedHeater, PlanRequest, TariffPeriod } from '@/lib/planner/types';
+import { oneControl } from '@/lib/planner/joint';
 
 const HOUR = 3_600_000;
 /** How long before departure the model starts at the latest (a longer-parked engine is cold-soaked). */
@@ -98,6 +99,18 @@ export function soakModelFor(r: PlanRecords): SoakModel {
   };
 }
 
+/**
+ * The heater the plan switches: the strongest one fitted and every heater on the same control with it,
+ * as one schedule (their powers add, each on its own node). Heaters on other controls are not in this
+ * schedule (lib/planner/joint.ts plans controls jointly; the stored plan keeps one control).
+ */
+export function plannedHeaterFor(r: PlanRecords, model: SoakModel): PlannedHeater | null {
+  const primary = primaryHeater(r.heaters);
+  if (!primary) return null;
+  const node = (n: 'oil' | 'engine') => (n === 'engine' && !model.engine ? 'oil' : n);
+  return oneControl(r.heaters.filter((h) => h.control === primary.control).map((h) => ({ node: node(h.node), powerW: h.powerW })));
+}
+
 /** The planner's request for a departure, or null when the aircraft has no heater. */
 export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelFor(r)): PlanRequest | null {
   const heater = primaryHeater(r.heaters);
@@ -107,7 +120,7 @@ export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelF
     departureMs: r.departure.departAtMs,
     readyC: r.departure.readyC,
     ...(r.departure.floorC !== null ? { floorC: r.departure.floorC } : {}),
-    heater: { node: heater.node === 'engine' && !model.engine ? 'oil' : heater.node, powerW: heater.powerW },
+    heater: plannedHeaterFor(r, model)!,
     tariff: r.tariff,
     slotMinutes: heater.slotMinutes || 5,
     earliestSwitchOnMs: Math.max(model.startMs, Math.min(nowMs, r.departure.departAtMs)),
