@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from 'next';
+import { connection } from 'next/server';
 import localFont from 'next/font/local';
 import './globals.css';
 
@@ -24,7 +25,10 @@ export const viewport: Viewport = {
   ],
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request: its scripts carry the nonce of that response's
+  // Content-Security-Policy (proxy.ts), which a page built ahead of time could not.
+  await connection();
   return (
     <html lang="en" className={inter.variable}>
       <body className="min-h-dvh font-sans">{children}</body>

@@ -22,11 +22,12 @@ import { OutboxMessage, initOutboxMessage } from './OutboxMessage';
 import { Token, initToken } from './Token';
 import { Lease, initLease } from './Lease';
 import { CapturedMail, initCapturedMail } from './CapturedMail';
+import { DepartureOutcome, initDepartureOutcome } from './DepartureOutcome';
 import { migrations } from './migrations';
 import { guardWrites } from './transaction';
 
 export { Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
-export { Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail };
+export { Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -58,6 +59,7 @@ export function db() {
     initToken(sequelize);
     initLease(sequelize);
     initCapturedMail(sequelize);
+    initDepartureOutcome(sequelize);
 
     Organization.hasMany(User, { foreignKey: 'organizationId' });
     User.belongsTo(Organization, { foreignKey: 'organizationId' });
@@ -85,9 +87,11 @@ export function db() {
     OutboxMessage.belongsTo(Alert, { foreignKey: 'alertId', as: 'alert' });
     AlertPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
     Token.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+    Departure.hasOne(DepartureOutcome, { foreignKey: 'departureId', as: 'outcome' });
+    DepartureOutcome.belongsTo(Departure, { foreignKey: 'departureId', as: 'departure' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome };
 }
 
 export function migrator() {

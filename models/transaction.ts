@@ -111,20 +111,24 @@ const WRITE_SQL = /^\s*(INSERT|UPDATE|DELETE|REPLACE)\b/i;
 const guarded = new WeakSet<Sequelize>();
 
 /**
+ * Every dialect: a query issued inside a writeTransaction() without its `transaction` runs in that
+ * transaction (on SQLite it would wait on the lock the transaction itself holds; on PostgreSQL it would
+ * need a second pool connection, and a full pool of such transactions would wait on each other).
  * SQLite only: every query outside a transaction that writes (a model's create, update, destroy, a raw
- * INSERT …) joins the same in-process queue as the write transactions and is retried on busy, and a
- * query issued inside a writeTransaction() without its `transaction` runs in that transaction (instead of
- * waiting on the lock the transaction itself holds). Called by db(); safe to call again.
+ * INSERT …) joins the same in-process queue as the write transactions and is retried on busy.
+ * Called by db(); safe to call again.
  */
 export function guardWrites(s: Sequelize) {
-  if (guarded.has(s) || s.getDialect() !== 'sqlite') return;
+  if (guarded.has(s)) return;
   guarded.add(s);
+  const sqlite = s.getDialect() === 'sqlite';
   const query = s.query.bind(s) as (sql: unknown, options?: Record<string, unknown>) => Promise<unknown>;
   (s as unknown as { query: typeof query }).query = (sql, options) => {
     const o = options ?? {};
     if (o.transaction) return query(sql, o);
     const t = live(current.getStore());
     if (t) return query(sql, { ...o, transaction: t });
+    if (!sqlite) return query(sql, o);
     const text = typeof sql === 'string' ? sql : String((sql as { query?: unknown } | null)?.query ?? '');
     const writes = WRITE_TYPES.has(String(o.type ?? '')) || WRITE_SQL.test(text);
     if (!writes) return query(sql, o);

@@ -3,7 +3,7 @@ import type { Permission } from '@/lib/auth/permissions';
 export interface NavItem {
   href: string;
   label: string;
-  icon: 'board' | 'map' | 'airfield' | 'aircraft' | 'departure' | 'oil' | 'alert' | 'curve' | 'settings' | 'users' | 'mail';
+  icon: 'board' | 'map' | 'airfield' | 'aircraft' | 'departure' | 'oil' | 'alert' | 'curve' | 'report' | 'settings' | 'users' | 'mail';
   permission: Permission;
   /** Shown in the phone's bottom bar (the rest go under "More"). */
   primary?: boolean;
@@ -20,6 +20,7 @@ export const NAV: NavItem[] = [
   { href: '/aircraft', label: 'Aircraft', icon: 'aircraft', permission: 'org:read' },
   { href: '/soak', label: 'Soak forecast', icon: 'curve', permission: 'simulate' },
   { href: '/oil-log', label: 'Oil log', icon: 'oil', permission: 'oil-log:write' },
+  { href: '/season', label: 'Season report', icon: 'report', permission: 'plans:manage' },
   { href: '/calibration', label: 'Fit from log', icon: 'curve', permission: 'aircraft:edit' },
   { href: '/alerts', label: 'Alerts', icon: 'alert', permission: 'org:read', primary: true, badge: 'alerts' },
   { href: '/admin/users', label: 'Users', icon: 'users', permission: 'users:manage' },

@@ -42,12 +42,12 @@ function isTrusted(a: string, list: net.BlockList): boolean {
   return family !== 0 && list.check(a, family === 6 ? 'ipv6' : 'ipv4');
 }
 
-type HeaderSource = Headers | Record<string, unknown> | undefined | null;
+type HeaderSource = Pick<Headers, 'get'> | Record<string, unknown> | undefined | null;
 
 function header(h: HeaderSource, name: string): string | null {
   if (!h) return null;
-  if (h instanceof Headers) return h.get(name);
-  const v = h[name];
+  if (typeof (h as Pick<Headers, 'get'>).get === 'function') return (h as Pick<Headers, 'get'>).get(name);
+  const v = (h as Record<string, unknown>)[name];
   return typeof v === 'string' ? v : Array.isArray(v) ? String(v[v.length - 1]) : null;
 }
 

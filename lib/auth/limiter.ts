@@ -1,4 +1,4 @@
-import { RateLimiterMemory, RateLimiterPostgres, type RateLimiterAbstract, type RateLimiterStoreAbstract } from 'rate-limiter-flexible';
+import { RateLimiterMemory, RateLimiterPostgres, type RateLimiterAbstract } from 'rate-limiter-flexible';
 import { env } from '@/lib/env';
 import { getSequelize } from '@/models/db';
 import { Invalid, TooManyRequests } from '@/lib/api/errors';
@@ -22,7 +22,8 @@ export const MAX_DELAY_S = 60;
 export const TOKEN_MISSES_PER_ADDRESS = 30;
 export const RESET_REQUESTS_PER_ADDRESS = 10;
 
-type Limiter = RateLimiterAbstract | RateLimiterStoreAbstract;
+/** The part of a rate-limiter-flexible limiter used here. */
+type Limiter = Pick<RateLimiterAbstract, 'get' | 'penalty' | 'block' | 'delete'>;
 interface Limiters {
   accountFailures: Limiter;
   accountDelay: Limiter;
@@ -33,12 +34,26 @@ interface Limiters {
 
 const g = globalThis as unknown as { __thawlineLimiters?: Limiters };
 
+/**
+ * One counter. On PostgreSQL the package creates its table (CREATE TABLE IF NOT EXISTS rate_limits) when
+ * constructed and refuses calls until that is done, so every call waits for it.
+ */
 function make(keyPrefix: string, points: number, duration: number): Limiter {
   const e = env();
-  if (e.DATABASE_URL && getSequelize().getDialect() === 'postgres') {
-    return new RateLimiterPostgres({ storeClient: getSequelize(), storeType: 'sequelize', tableName: 'rate_limits', keyPrefix, points, duration });
-  }
-  return new RateLimiterMemory({ keyPrefix, points, duration });
+  if (!(e.DATABASE_URL && getSequelize().getDialect() === 'postgres')) return new RateLimiterMemory({ keyPrefix, points, duration });
+  let limiter: RateLimiterPostgres | undefined;
+  const ready = new Promise<RateLimiterPostgres>((resolve, reject) => {
+    limiter = new RateLimiterPostgres({ storeClient: getSequelize(), storeType: 'sequelize', tableName: 'rate_limits', keyPrefix, points, duration }, (err?: unknown) =>
+      err ? reject(err) : resolve(limiter!),
+    );
+  });
+  ready.catch(() => {});
+  return {
+    get: async (key: string) => (await ready).get(key),
+    penalty: async (key: string, n?: number) => (await ready).penalty(key, n),
+    block: async (key: string, secs: number) => (await ready).block(key, secs),
+    delete: async (key: string) => (await ready).delete(key),
+  };
 }
 
 function limiters(): Limiters {
@@ -95,7 +110,7 @@ export async function clearFailedSignIns(account: string) {
 }
 
 /** Refuses (429) a caller whose address has missed too many token links lately. */
-export async function assertTokenAttemptsLeft(req: Request) {
+export async function assertTokenAttemptsLeft(req: { headers: Pick<Headers, 'get'> }) {
   const address = clientAddress(req.headers);
   if (!address) return;
   const ms = await blockedMs(limiters().tokenMisses, address, TOKEN_MISSES_PER_ADDRESS);
@@ -103,7 +118,7 @@ export async function assertTokenAttemptsLeft(req: Request) {
 }
 
 /** Counts a token link that matched nothing usable (unknown, used, expired). */
-export async function recordTokenMiss(req: Request) {
+export async function recordTokenMiss(req: { headers: Pick<Headers, 'get'> }) {
   const address = clientAddress(req.headers);
   if (address) await limiters().tokenMisses.penalty(address, 1);
 }
@@ -115,6 +130,20 @@ export async function consumeResetRequest(req: Request) {
   const l = limiters().resetRequests;
   const r = await l.penalty(address, 1);
   if (r.consumedPoints > RESET_REQUESTS_PER_ADDRESS) throw new TooManyRequests(Math.ceil(r.msBeforeNext / 1000));
+}
+
+/**
+ * For the invitation and reset pages, which look a token up to show its form: null when the address
+ * may look, else the seconds to wait. A token that matches nothing is counted by the caller.
+ */
+export async function tokenPageWait(h: Pick<Headers, 'get'>): Promise<number> {
+  try {
+    await assertTokenAttemptsLeft({ headers: h });
+    return 0;
+  } catch (err) {
+    if (err instanceof TooManyRequests) return err.retryAfterSeconds;
+    throw err;
+  }
 }
 
 /**

@@ -314,17 +314,15 @@ async function checkRegistrationFree({ orgId, registration, exceptId }: { orgId:
 
 async function replaceHeaters({ orgId, aircraftId, heaters }: { orgId: number; aircraftId: number; heaters: HeaterInput[] }, transaction: Transaction) {
   await Heater.destroy({ where: { aircraftId }, transaction });
-  if (heaters.length) {
-    await Heater.bulkCreate(
-      heaters.map((h) => ({ organizationId: orgId, aircraftId, kind: h.kind, powerW: h.powerW, node: h.node, control: h.control, slotMinutes: h.slotMinutes })),
-      { transaction },
-    );
+  // One bound INSERT each (a bulk insert puts the values into the SQL text).
+  for (const h of heaters) {
+    await Heater.create({ organizationId: orgId, aircraftId, kind: h.kind, powerW: h.powerW, node: h.node, control: h.control, slotMinutes: h.slotMinutes }, { transaction });
   }
 }
 
 async function replacePilots({ aircraftId, pilotIds }: { aircraftId: number; pilotIds: number[] }, transaction: Transaction) {
   await AircraftPilot.destroy({ where: { aircraftId }, transaction });
-  if (pilotIds.length) await AircraftPilot.bulkCreate(pilotIds.map((userId) => ({ aircraftId, userId })), { transaction });
+  for (const userId of pilotIds) await AircraftPilot.create({ aircraftId, userId }, { transaction });
 }
 
 export async function createAircraft({ orgId, input, now = new Date() }: { orgId: number; input: AircraftCreate; now?: Date }): Promise<AircraftRecord> {

@@ -340,7 +340,7 @@ export function planAtDeparture(req: PlanRequest): PlanResult {
   const issuedAtMs = req.forecastIssuedAtMs ?? req.nowMs ?? model.startMs;
   const uncertainty = oilUncertainty(model, atT, { departureMs: T, issuedAtMs, correlationHours: req.uncertainty?.correlationHours });
   const z = req.targetProbability !== undefined ? Math.max(0, normalQuantile(req.targetProbability)) : 0;
-  const targetC = req.readyC + z * uncertainty.sigmaOilK;
+  const targetC = req.readyC + Math.max(z * uncertainty.sigmaOilK, req.targetMarginK ?? 0);
   const p: Problem = { req, model, T, earliest, slots, a, cost, objective, tie, kWh, pricing, atT, targetC };
 
   // The floor: where it is enforced from, and the slot ends where it can bind.

@@ -65,6 +65,11 @@ export interface PlanRequest {
   uncertainty?: { correlationHours?: number };
   /** Plan for this chance of being ready instead of the forecast's best guess (raises the target by z·σ). */
   targetProbability?: number;
+  /**
+   * Aim at least this far above the ready temperature, K (lib/planner/chance.ts sets it from every error
+   * source, not the forecast alone). The larger of this and the targetProbability margin is used.
+   */
+  targetMarginK?: number;
   /** Branch-and-bound node limit for the slot choice (default 200 000). */
   maxNodes?: number;
   /**

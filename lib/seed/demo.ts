@@ -9,6 +9,7 @@ import { aircraftDefaultsFor, shelterDefaultsFor } from './defaults';
 import { seedPlanning } from './planning';
 import { seedOilLog } from './oil';
 import { seedAlerts } from './alerts';
+import { seedOutcomes } from './outcomes';
 import { writeTransaction } from '@/models/transaction';
 
 // The invented demo scenario (data/demo/scenario.json) written into an empty database in one transaction.
@@ -123,6 +124,7 @@ export async function seedDemo(now = new Date()): Promise<string> {
     await seedPlanning(ctx);
     await seedOilLog(ctx);
     await seedAlerts(ctx);
+    await seedOutcomes(ctx);
     const counts = scenario.organizations.map((o) => `${o.name}: ${o.users.length} users, ${o.airfields.length} airfields, ${o.aircraft.length} aircraft`);
     return counts.join('; ');
   });

@@ -7,6 +7,7 @@ import * as m005 from './005-alerts-mail';
 import * as m006 from './006-plan-unique';
 import * as m007 from './007-session-version';
 import * as m008 from './008-start-window';
+import * as m009 from './009-outcomes';
 
 export interface Migration {
   name: string;
@@ -25,4 +26,5 @@ export const migrations: Migration[] = [
   { name: '006-plan-unique', ...m006 },
   { name: '007-session-version', ...m007 },
   { name: '008-start-window', ...m008 },
+  { name: '009-outcomes', ...m009 },
 ];

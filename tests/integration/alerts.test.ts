@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Op } from 'sequelize';
 import { DEMO, call, freshDatabase, signInAs, signOut } from './helpers';
 import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../unit/mail/testSmtp';
 
@@ -85,7 +86,7 @@ describe('oil-too-cold warning', () => {
     expect(smtp.received.length).toBe(before);
 
     const sipi = (await models.Aircraft.findOne({ where: { registration: 'Q-SIPI' } }))!;
-    const dep = (await models.Departure.findOne({ where: { aircraftId: sipi.id, cancelledAt: null } }))!;
+    const dep = (await models.Departure.findOne({ where: { aircraftId: sipi.id, cancelledAt: null, departAt: { [Op.gt]: new Date() } }, order: [['departAt', 'ASC']] }))!;
     await dep.update({ readyC: dep.readyC + 5 });
     const later = new Date(now0.getTime() + 2 * 60_000);
     await evaluate(later);
@@ -190,7 +191,7 @@ describe('cold-night notice', () => {
     const org = (await models.Organization.findOne({ where: { name: 'Frostvale Flying Club' } }))!;
     // 18:00 local on the day before the demo's departures, the notice five minutes later.
     const sipi = (await models.Aircraft.findOne({ where: { registration: 'Q-SIPI' } }))!;
-    const dep = (await models.Departure.findOne({ where: { aircraftId: sipi.id, cancelledAt: null }, order: [['departAt', 'ASC']] }))!;
+    const dep = (await models.Departure.findOne({ where: { aircraftId: sipi.id, cancelledAt: null, departAt: { [Op.gt]: new Date() } }, order: [['departAt', 'ASC']] }))!;
     const d = localDateOf('Europe/Helsinki', new Date(dep.departAt).getTime() - 24 * 3_600_000);
     const at = new Date(zonedTimeToUtc('Europe/Helsinki', d.year, d.month, d.day, 18, 5));
     await org.update({ coldNightThresholdC: 10, coldNightNoticeAt: '18:00' });

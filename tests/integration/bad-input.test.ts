@@ -114,9 +114,11 @@ describe('the alert job with a bad row in one organization', () => {
     await models.OutboxMessage.destroy({ where: {} });
     const first = await frostvale();
     const ridgeway = (await models.Organization.findOne({ where: { name: 'Ridgeway Aero Group' } }))!.id;
-    // Every aircraft of the first organization gets the bad label, through a bound parameter.
-    await models.sequelize.query('UPDATE aircraft SET "typeLabel" = $label WHERE "organizationId" = $org', { bind: { label: 'Two-seat\u0000trainer', org: first } });
-    expect((await models.Aircraft.findOne({ where: { organizationId: first } }))!.typeLabel).toContain('\u0000');
+    // Every aircraft of the first organization gets the bad label, through a bound parameter (a NUL;
+    // PostgreSQL stores no NUL in text at all, so there another C0 control stands in for it).
+    const bad = models.sequelize.getDialect() === 'postgres' ? '\u0001' : '\u0000';
+    await models.sequelize.query('UPDATE aircraft SET "typeLabel" = $label WHERE "organizationId" = $org', { bind: { label: `Two-seat${bad}trainer`, org: first } });
+    expect((await models.Aircraft.findOne({ where: { organizationId: first } }))!.typeLabel).toContain(bad);
     const logged: string[] = [];
     vi.spyOn(console, 'error').mockImplementation((...args: unknown[]) => void logged.push(args.join(' ')));
     const r = await evaluate.evaluateAlerts({ now: new Date() });

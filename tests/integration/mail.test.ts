@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Op } from 'sequelize';
 import { DEMO, call, freshDatabase, signInAs } from './helpers';
 import { startSmtpUrl, stopSmtpUrl, testSmtp, type TestSmtp } from '../unit/mail/testSmtp';
 
@@ -137,7 +138,7 @@ describe('quiet hours', () => {
     expect(smtp.received.filter((m) => m.envelopeTo.includes(DEMO.pilot) && /too cold|needs heat/.test(m.subject)).length).toBeGreaterThan(0);
 
     // The manager's quiet hours 17:00–19:00; the notice is due at 18:00 on the evening before the departures.
-    const dep = (await models.Departure.findOne({ where: { organizationId: org.id, cancelledAt: null }, order: [['departAt', 'ASC']] }))!;
+    const dep = (await models.Departure.findOne({ where: { organizationId: org.id, cancelledAt: null, departAt: { [Op.gt]: new Date() } }, order: [['departAt', 'ASC']] }))!;
     const d = localDateOf(zone, new Date(dep.departAt).getTime() - 24 * 3_600_000);
     const evening = new Date(zonedTimeToUtc(zone, d.year, d.month, d.day, 18, 5));
     const quietEnd = zonedTimeToUtc(zone, d.year, d.month, d.day, 19, 0);

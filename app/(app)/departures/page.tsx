@@ -9,6 +9,8 @@ import { listDepartures } from '@/lib/data/departures';
 import { plansForDepartures } from '@/lib/data/plans';
 import { ReadinessCell } from '@/components/board/ReadinessCell';
 import { OilTooColdBanner } from '@/components/board/OilTooColdBanner';
+import { OutcomeSection } from '@/components/outcomes/OutcomeCard';
+import { outcomeEntries } from '@/lib/data/outcomes';
 
 export const metadata: Metadata = { title: 'Departures' };
 
@@ -34,12 +36,14 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
   const { aircraft: pre } = await searchParams;
   const bookAny = can(user.role, 'departures:book-any');
   const nowMs = Date.now();
-  const [fleet, flies, pilots, departures] = await Promise.all([
+  const [fleet, flies, pilots, departures, mornings] = await Promise.all([
     listAircraft({ orgId: user.orgId }),
     bookAny ? Promise.resolve(null) : aircraftIdsFlownBy({ orgId: user.orgId, userId: user.id }),
     bookAny ? listPilotChoices({ orgId: user.orgId }) : Promise.resolve([]),
     // The same window and scope as GET /api/departures, so SWR takes over seamlessly.
     listDepartures({ orgId: user.orgId, fromMs: nowMs - 6 * HOUR_MS, toMs: nowMs + 14 * 24 * HOUR_MS, pilotId: bookAny ? undefined : user.id }),
+    // Mornings of the last 36 hours, for the "Oil at start" cards (Morning outcomes).
+    outcomeEntries({ orgId: user.orgId, pilotId: bookAny ? undefined : user.id, now: new Date(nowMs) }),
   ]);
   const plans = await plansForDepartures({ orgId: user.orgId, departures, now: new Date(nowMs) });
   const readiness = Object.fromEntries(plans.map((p) => [p.departureId, <ReadinessCell key={p.departureId} plan={p} units={user.tempUnit} nowMs={nowMs} />]));
@@ -55,6 +59,7 @@ export default async function Page({ searchParams }: { searchParams: Promise<{ a
         subtitle={bookAny ? 'Every booked first flight of the day, and booking for any pilot.' : 'Your first flights of the day and whether the oil will be warm enough.'}
       />
       <OilTooColdBanner plans={tooCold} units={user.tempUnit} />
+      <OutcomeSection entries={mornings} tempUnit={user.tempUnit} showPilot={bookAny} />
       {choices.length ? (
         <a href="#book-h" className="mb-4 inline-flex min-h-11 items-center rounded-xl bg-ice-700 px-4 text-sm font-semibold text-white hover:bg-ice-800 dark:bg-ice-500 dark:text-slate-950">
           Book a departure

@@ -12,6 +12,8 @@ import { listDepartures } from '@/lib/data/departures';
 import { plansForDepartures } from '@/lib/data/plans';
 import { ReadinessCell } from '@/components/board/ReadinessCell';
 import { formatDayTime } from '@/lib/time';
+import { OutcomeSection } from '@/components/outcomes/OutcomeCard';
+import { outcomeEntries } from '@/lib/data/outcomes';
 
 export const metadata: Metadata = { title: 'Aircraft' };
 
@@ -39,6 +41,11 @@ export default async function Page({ params, searchParams }: { params: Promise<{
       ? await listDepartures({ orgId: user.orgId, aircraftId: a.id, fromMs: nowMs - 30 * 60_000, toMs: nowMs + 14 * 86_400_000, pilotId: bookAny ? undefined : user.id })
       : [];
   const plans = departures.length ? await plansForDepartures({ orgId: user.orgId, departures, now: new Date(nowMs) }) : [];
+  // Mornings of the last 36 hours to record (a pilot: their own departures; roles that book for anyone: all).
+  const mornings =
+    tab === 'departures' && can(user.role, 'departures:book-own')
+      ? await outcomeEntries({ orgId: user.orgId, aircraftId: a.id, pilotId: bookAny ? undefined : user.id, now: new Date(nowMs) })
+      : [];
   const tabClass = (on: boolean) =>
     `inline-flex min-h-11 items-center border-b-2 px-3 text-sm font-semibold ${on ? 'border-ice-700 text-slate-900 dark:border-ice-300 dark:text-white' : 'border-transparent text-slate-600 hover:text-slate-900 dark:text-slate-400'}`;
   return (
@@ -71,6 +78,7 @@ export default async function Page({ params, searchParams }: { params: Promise<{
       </nav>
       {tab === 'departures' ? (
         <section aria-labelledby="ac-deps-h" className="space-y-3">
+          <OutcomeSection entries={mornings} tempUnit={user.tempUnit} showPilot={bookAny} />
           <h2 id="ac-deps-h" className="text-lg font-semibold text-slate-900 dark:text-white">Upcoming departures</h2>
           {plans.length ? (
             <ul className="grid gap-3 lg:grid-cols-2">

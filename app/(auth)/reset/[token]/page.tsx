@@ -1,4 +1,6 @@
 import type { Metadata } from 'next';
+import { headers } from 'next/headers';
+import { recordTokenMiss, tokenPageWait } from '@/lib/auth/limiter';
 import { inspectToken, TOKEN_PROBLEM_MESSAGE } from '@/lib/data/tokens';
 import { TOKEN_RE } from '@/lib/validation/tokens';
 import { NewPasswordForm, TokenProblem } from '../NewPasswordForm';
@@ -9,7 +11,15 @@ export const dynamic = 'force-dynamic';
 
 export default async function ResetPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
+  // Token look-ups count against the address like the token routes (lib/auth/limiter.ts).
+  const h = await headers();
+  const wait = await tokenPageWait(h);
+  if (wait > 0) {
+    const minutes = Math.max(1, Math.ceil(wait / 60));
+    return <TokenProblem title="Reset link" message={`Too many links were tried from this address. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`} action={{ href: '/forgot', label: 'Ask for a new link' }} />;
+  }
   const t = TOKEN_RE.test(token) ? await inspectToken({ token, purpose: 'reset' }) : ({ ok: false, problem: 'invalid' } as const);
+  if (!t.ok) await recordTokenMiss({ headers: h });
   if (!t.ok) return <TokenProblem title="Reset link" message={TOKEN_PROBLEM_MESSAGE.reset[t.problem]} action={{ href: '/forgot', label: 'Ask for a new link' }} />;
   return (
     <NewPasswordForm

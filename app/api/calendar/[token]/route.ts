@@ -1,7 +1,7 @@
 import { feedCalendar, publicBaseUrl } from '@/lib/data/calendar';
-import { describeError } from '@/lib/log';
 import { assertTokenAttemptsLeft, recordTokenMiss } from '@/lib/auth/limiter';
 import { TooManyRequests } from '@/lib/api/errors';
+import { describeError } from '@/lib/log';
 
 export const dynamic = 'force-dynamic';
 
