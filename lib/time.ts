@@ -6,7 +6,6 @@ import { isValidTimeZone, localDateOf, offsetSecondsAt } from '@/lib/weather/tz'
 
 export { isValidTimeZone, localDateOf, offsetSecondsAt };
 
-const MINUTE_MS = 60_000;
 const HOUR_MS = 3_600_000;
 
 export interface LocalDate {
@@ -198,7 +197,3 @@ export function formatAge(minutes: number): string {
   return h % 24 ? `${d} d ${h % 24} h` : `${d} d`;
 }
 
-/** Whole minutes between two instants (never negative). */
-export function minutesBetween(fromMs: number, toMs: number): number {
-  return Math.max(0, Math.floor((toMs - fromMs) / MINUTE_MS));
-}

@@ -28,6 +28,18 @@ export function volumeLabel(unit: VolumeUnit): string {
   return unit === 'qt' ? 'US qt' : 'L';
 }
 
-export function formatTemp(c: number, unit: TempUnit, digits = 0): string {
-  return `${toDisplayTemp(c, unit).toFixed(digits)} ${tempLabel(unit)}`;
+/** The typographic minus sign (U+2212) that every displayed negative number uses. */
+export const MINUS = '\u2212';
+
+/** A formatted number with the typographic minus sign ("-3.5" → "−3.5"). */
+export function withMinus(s: string): string {
+  return s.replace('-', MINUS);
+}
+
+/** "−14 °C" (`digits` decimals, never "−0"), or "—" without a value. The one temperature formatter. */
+export function formatTemp(c: number | null | undefined, unit: TempUnit, digits = 0): string {
+  if (c === null || c === undefined || !Number.isFinite(c)) return '—';
+  let s = toDisplayTemp(c, unit).toFixed(digits);
+  if (Number(s) === 0) s = (0).toFixed(digits);
+  return `${withMinus(s)} ${tempLabel(unit)}`;
 }

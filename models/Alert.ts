@@ -1,6 +1,8 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-export type AlertKind = 'oil-too-cold' | 'switch-on' | 'cold-night';
+import type { AlertKind } from '@/lib/alerts/content';
+
+export type { AlertKind };
 
 /**
  * An alert shown to one user in the app (and usually sent by e-mail). Each subject (a departure's

@@ -1,7 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 /** How one kind of alert reaches the user: in the app and by e-mail, in the app only, or not at all. */
-export type AlertChannel = 'email' | 'app' | 'off';
+import type { AlertChannel } from '@/lib/views/alerts';
+
+export type { AlertChannel };
 
 /**
  * A user's alert preferences (absent row: the defaults). The oil-too-cold warning is always shown in

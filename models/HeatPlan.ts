@@ -1,7 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Departure } from './Departure';
 import type { Organization } from './Organization';
-import type { User } from './User';
 
 /**
  * The stored Heat plan of a departure. `inputsKey` fingerprints everything it was computed from

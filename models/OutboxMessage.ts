@@ -1,7 +1,8 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
-export type MailKind = 'oil-too-cold' | 'switch-on' | 'cold-night' | 'invite' | 'reset' | 'address-in-use';
-export type OutboxStatus = 'pending' | 'sending' | 'sent' | 'failed' | 'expired' | 'cancelled';
+import type { MailKind, OutboxStatus } from '@/lib/views/mail';
+
+export type { MailKind, OutboxStatus };
 
 /**
  * One e-mail in the durable outbox. A row is written first; the delivery job claims it (status

@@ -4,8 +4,9 @@ import type { Aircraft, ThermalParams } from './Aircraft';
 import type { User } from './User';
 import type { TempLog } from './TempLog';
 
-export const REVISION_KINDS = ['initial', 'fitted', 'revert', 'manual'] as const;
-export type RevisionKind = (typeof REVISION_KINDS)[number];
+import { REVISION_KINDS, type RevisionKind } from '@/lib/views/logs';
+
+export { REVISION_KINDS, type RevisionKind };
 
 /**
  * One state of an aircraft's thermal profile, in the order it was taken. "initial" records the profile

@@ -1,9 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Organization } from './Organization';
 import type { Airfield } from './Airfield';
+import { SHELTER_KINDS, type ShelterKind } from '@/lib/validation/airfields';
 
-export const SHELTER_KINDS = ['heated-hangar', 'unheated-hangar', 't-hangar', 'tie-down'] as const;
-export type ShelterKind = (typeof SHELTER_KINDS)[number];
+export { SHELTER_KINDS, type ShelterKind };
 
 export class Shelter extends Model<InferAttributes<Shelter>, InferCreationAttributes<Shelter>> {
   declare id: CreationOptional<number>;

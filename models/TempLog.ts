@@ -3,16 +3,9 @@ import type { Organization } from './Organization';
 import type { Aircraft } from './Aircraft';
 import type { User } from './User';
 
-/** How the uploaded file was read: which columns, which unit, which time format, in which zone. */
-export interface TempLogLayout {
-  columns: { time: string; oil: string; ambient: string | null; heater: string | null };
-  unit: 'C' | 'F';
-  unitSource: 'header' | 'cells' | 'form' | 'default';
-  timeFormat: string;
-  timeZone: string;
-  delimiter: string;
-  headerRow: number | null;
-}
+import type { TempLogLayout } from '@/lib/views/logs';
+
+export type { TempLogLayout };
 
 /**
  * An uploaded temperature-logger series for one aircraft. The points are stored compactly in

@@ -13,6 +13,9 @@ import { OilChange, initOilChange } from './OilChange';
 import { Heater, initHeater } from './Heater';
 import { AircraftPilot, initAircraftPilot } from './AircraftPilot';
 import { Tariff, initTariff } from './Tariff';
+import { Device, initDevice } from './Device';
+import { DeviceEvent, initDeviceEvent } from './DeviceEvent';
+import { DeviceReading, initDeviceReading } from './DeviceReading';
 import { Departure, initDeparture } from './Departure';
 import { HeatPlan, initHeatPlan } from './HeatPlan';
 import { CalendarFeed, initCalendarFeed } from './CalendarFeed';
@@ -28,6 +31,7 @@ import { guardWrites } from './transaction';
 
 export { Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
 export { Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome };
+export { Device, DeviceEvent, DeviceReading };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -60,6 +64,9 @@ export function db() {
     initLease(sequelize);
     initCapturedMail(sequelize);
     initDepartureOutcome(sequelize);
+    initDevice(sequelize);
+    initDeviceEvent(sequelize);
+    initDeviceReading(sequelize);
 
     Organization.hasMany(User, { foreignKey: 'organizationId' });
     User.belongsTo(Organization, { foreignKey: 'organizationId' });
@@ -91,7 +98,7 @@ export function db() {
     DepartureOutcome.belongsTo(Departure, { foreignKey: 'departureId', as: 'departure' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome, Device, DeviceEvent, DeviceReading };
 }
 
 export function migrator() {
@@ -104,9 +111,31 @@ export function migrator() {
   });
 }
 
-/** Applies every pending migration; a second run applies nothing. Returns the names applied. */
-export async function migrate(): Promise<string[]> {
+/** Key of the PostgreSQL advisory lock that lets one instance at a time prepare the database. */
+const STARTUP_LOCK = 7_231_406;
+
+/**
+ * Runs `fn` while holding the database's start-up lock (PostgreSQL: a transaction-scoped advisory lock
+ * on a connection of its own; SQLite: one process per file, no lock needed). Instances starting together
+ * take turns: the first migrates (and seeds), the others then find nothing to do. `fn` must not take
+ * the lock again.
+ */
+export async function withStartupLock<T>(fn: () => Promise<T>): Promise<T> {
+  const { sequelize } = db();
+  if (sequelize.getDialect() !== 'postgres') return fn();
+  return sequelize.transaction(async (t) => {
+    await sequelize.query(`SELECT pg_advisory_xact_lock(${STARTUP_LOCK})`, { transaction: t });
+    return fn();
+  });
+}
+
+/** Applies every pending migration without taking the start-up lock (inside withStartupLock()). */
+export async function applyMigrations(): Promise<string[]> {
   db();
-  const done = await migrator().up();
-  return done.map((m) => m.name);
+  return (await migrator().up()).map((m) => m.name);
+}
+
+/** Applies every pending migration, one instance at a time; a second run applies nothing. Returns the names applied. */
+export async function migrate(): Promise<string[]> {
+  return withStartupLock(applyMigrations);
 }

@@ -10,7 +10,7 @@ import type { Landmark } from '@/components/map/LocationPicker';
 import { sendJson } from '@/lib/client/fetcher';
 import { canonicalTimeZone, formatTime, formatUtcOffset } from '@/lib/time';
 import { airfieldCreateSchema, airfieldUpdateSchema, SHELTER_KIND_LABEL, SHELTER_KINDS, type ShelterKind } from '@/lib/validation/airfields';
-import type { AirfieldRow } from '@/lib/data/airfields';
+import type { AirfieldRow } from '@/lib/views/airfields';
 import { issuesByField } from './issues';
 
 interface Props {

@@ -9,12 +9,12 @@ import { TemperatureChart, type ChartBand, type ChartSeries } from '@/components
 import { fetcher, sendJson } from '@/lib/client/fetcher';
 import { formatAge, formatDay, formatDayTime, formatTime, zoneLabel } from '@/lib/time';
 import { SHELTER_KIND_LABEL } from '@/lib/validation/airfields';
-import type { AirfieldRow, ShelterRow } from '@/lib/data/airfields';
-import type { ForecastView, SunDayView } from '@/lib/data/forecasts';
+import type { AirfieldRow, ShelterRow } from '@/lib/views/airfields';
+import type { ForecastView, SunDayView } from '@/lib/views/forecasts';
 import { formatNumber, formatTemp, type TempUnit } from './format';
 import { RemoveButton } from './RemoveButton';
 import { ShelterKindIcon } from './ShelterKindIcon';
-import { SortHeader, TableCard, TableScroll, theadClass, useSorted } from './sortable';
+import { SortHeader, TableCard, TableScroll, theadClass, useSorted } from '@/components/ui/sortable';
 
 const SHELTER_COLOURS = ['#2b769b', '#7c3aed', '#0d9488', '#c026d3', '#65a30d', '#0369a1'];
 const HEAT_COLOUR = '#e34608';

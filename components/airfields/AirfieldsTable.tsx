@@ -9,7 +9,7 @@ import type { AirfieldWithTonight } from '@/components/map/SiteMapView';
 import { SHELTER_KIND_LABEL, SHELTER_KINDS } from '@/lib/validation/airfields';
 import { formatTemp, type TempUnit } from './format';
 import { ShelterKindIcon } from './ShelterKindIcon';
-import { SortHeader, TableCard, TableScroll, theadClass, useSorted } from './sortable';
+import { SortHeader, TableCard, TableScroll, theadClass, useSorted } from '@/components/ui/sortable';
 
 type Col = 'name' | 'ident' | 'shelters' | 'aircraft' | 'low' | 'zone';
 

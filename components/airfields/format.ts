@@ -1,27 +1,22 @@
 // Display helpers for airfield and forecast views (client and server). Temperatures are stored in °C;
 // people may read them in °F (their preference).
-import { toDisplayTemp, type TempUnit } from '@/lib/units';
+import { formatTemp as formatTempIn, toDisplayTemp, withMinus, type TempUnit } from '@/lib/units';
 
 export type { TempUnit };
-
-const MINUS = '\u2212';
 
 /** °C to the reader's unit (the one conversion, in lib/units). */
 export const toUnit = toDisplayTemp;
 
-/** "−14.2 °C" (one decimal), or "6 °F". */
+/** "−14.2 °C" (one decimal by default), or "6 °F": lib/units' formatter with this view's default. */
 export function formatTemp(c: number | null | undefined, unit: TempUnit = 'C', digits = 1): string {
-  if (c === null || c === undefined || !Number.isFinite(c)) return '—';
-  const v = toUnit(c, unit);
-  const s = Math.abs(v) < 0.05 && digits > 0 ? (0).toFixed(digits) : v.toFixed(digits);
-  return `${s.replace('-', MINUS)} °${unit}`;
+  return formatTempIn(c, unit, digits);
 }
 
 /** "−14°" — short, for map markers. */
 export function formatTempShort(c: number | null | undefined, unit: TempUnit = 'C'): string {
   if (c === null || c === undefined || !Number.isFinite(c)) return '—';
   const s = toUnit(c, unit).toFixed(0);
-  return `${(s === '-0' ? '0' : s).replace('-', MINUS)}°`;
+  return `${withMinus(s === '-0' ? '0' : s)}°`;
 }
 
 /** "61.520° N, 23.960° E". */
@@ -33,5 +28,5 @@ export function formatLatLon(lat: number, lon: number): string {
 /** "1.2 MJ/K" style numbers for the thermal parameters. */
 export function formatNumber(v: number | null | undefined, digits = 1): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return '—';
-  return v.toLocaleString('en-GB', { maximumFractionDigits: digits }).replace('-', MINUS);
+  return withMinus(v.toLocaleString('en-GB', { maximumFractionDigits: digits }));
 }

@@ -4,7 +4,7 @@ import { Button } from '@/components/ui/primitives';
 import { ALERT_KIND_LABEL, describeAlert, type ColdNightData, type OilTooColdData, type SwitchOnData } from '@/lib/alerts/content';
 import { CAUTIONS } from '@/lib/alerts/safety';
 import { formatDayTime, formatTime } from '@/lib/time';
-import type { AlertView } from '@/lib/data/alerts';
+import type { AlertView } from '@/lib/views/alerts';
 import type { TempUnit } from '@/lib/units';
 
 const ACCENT: Record<AlertView['kind'], string> = {

@@ -3,7 +3,7 @@ import useSWR, { useSWRConfig } from 'swr';
 import { useState } from 'react';
 import { Button, EmptyState, Notice } from '@/components/ui/primitives';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
-import type { AlertView } from '@/lib/data/alerts';
+import type { AlertView } from '@/lib/views/alerts';
 import type { TempUnit } from '@/lib/units';
 import { AlertCard } from './AlertCard';
 import { UNREAD_KEY } from './UnreadBadge';

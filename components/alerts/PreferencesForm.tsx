@@ -6,7 +6,7 @@ import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { ALERT_KIND_LABEL } from '@/lib/alerts/content';
 import { CHANNEL_LABEL, MAX_LEAD_MINUTES, MIN_LEAD_MINUTES } from '@/lib/validation/alerts';
-import type { PreferencesView } from '@/lib/data/alerts';
+import type { PreferencesView } from '@/lib/views/alerts';
 
 const HINT: Record<PreferencesView['kinds'][number], string> = {
   'oil-too-cold': 'When a departure you fly or look after will not be warm enough. Always shown here; it also goes in quiet hours.',

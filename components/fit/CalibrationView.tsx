@@ -10,12 +10,12 @@ import { SelectField } from '@/components/ui/Field';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
 import { formatDateTime } from '@/lib/time';
 import type { TempUnit } from '@/lib/units';
-import type { LogPreview, LogRecord, SeriesForChart, StoredFit } from '@/lib/data/logs';
-import type { ThermalParams } from '@/models/Aircraft';
+import type { LogPreview, LogRecord, SeriesForChart, StoredFit } from '@/lib/views/logs';
+import type { ThermalParams } from '@/lib/views/aircraft';
 import { FitResults } from './FitResults';
 import { ProfileHistory, type Profile } from './ProfileHistory';
 import { UploadForm } from './UploadForm';
-import { StatusArea } from './StatusArea';
+import { StatusArea } from '@/components/ui/StatusArea';
 import { PreviewDetails } from './PreviewDetails';
 import { sendFile } from './upload';
 

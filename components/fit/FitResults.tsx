@@ -8,10 +8,10 @@ import { CooldownChart, type ModelCurve } from '@/components/charts/CooldownChar
 import { sendJson } from '@/lib/client/fetcher';
 import { formatDateTime, formatDayTime } from '@/lib/time';
 import { tempLabel, toDisplayDelta, toDisplayTemp, type TempUnit } from '@/lib/units';
-import type { LogRecord, SeriesForChart, StoredFit } from '@/lib/data/logs';
+import type { LogRecord, SeriesForChart, StoredFit } from '@/lib/views/logs';
 import type { Estimate } from '@/lib/fit/cooldown';
 import { fmtEstimate, fmtKJ, fmtRelative } from './format';
-import { StatusArea } from './StatusArea';
+import { StatusArea } from '@/components/ui/StatusArea';
 
 interface Props {
   aircraftId: number;

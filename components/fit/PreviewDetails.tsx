@@ -5,7 +5,7 @@ import { Notice } from '@/components/ui/primitives';
 import { CooldownChart } from '@/components/charts/CooldownChart';
 import { formatDateTime } from '@/lib/time';
 import type { TempUnit } from '@/lib/units';
-import type { LogPreview } from '@/lib/data/logs';
+import type { LogPreview } from '@/lib/views/logs';
 
 const UNIT_SOURCE: Record<LogPreview['layout']['unitSource'], string> = {
   header: 'from the header',

@@ -5,8 +5,8 @@ import { useState } from 'react';
 import { Button, Card, Notice } from '@/components/ui/primitives';
 import { sendJson } from '@/lib/client/fetcher';
 import { formatDateTime } from '@/lib/time';
-import type { RevisionRecord } from '@/lib/data/logs';
-import type { ThermalParams } from '@/models/Aircraft';
+import type { RevisionRecord } from '@/lib/views/logs';
+import type { ThermalParams } from '@/lib/views/aircraft';
 import { profileTauH, SOURCE_LABEL, thermalLine } from './format';
 
 export interface Profile {

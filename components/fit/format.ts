@@ -1,5 +1,5 @@
 // Display helpers for fits and profiles (client and server).
-import type { ThermalParams } from '@/models/Aircraft';
+import type { ThermalParams } from '@/lib/views/aircraft';
 import type { Estimate } from '@/lib/fit/cooldown';
 
 const MINUS = '\u2212';

@@ -4,7 +4,7 @@ import useSWR from 'swr';
 import { useState } from 'react';
 import { Button, Card, EmptyState, Notice, PageHeader } from '@/components/ui/primitives';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
-import type { CapturedDetail, MailViewerData } from '@/lib/data/mail';
+import type { CapturedDetail, MailViewerData } from '@/lib/views/mail';
 import { formatDay, formatTime } from '@/lib/time';
 
 type MailListData = MailViewerData;

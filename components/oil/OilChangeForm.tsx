@@ -1,17 +1,17 @@
 'use client';
 // Recording an oil change, and (for operators and managers) the aircraft's oil-change interval.
 import { useState } from 'react';
-import { Button } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { volumeLabel, type VolumeUnit } from '@/lib/units';
-import type { OilLog } from '@/lib/data/oil';
-import { useSubmit } from './useSubmit';
+import type { OilLog } from '@/lib/views/oil';
+import { useSubmit } from '@/components/ui/useSubmit';
+import { SubmitRow } from '@/components/ui/SubmitRow';
 
 export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSaved }: { aircraftId: number; zone: string; currentHours: number | null; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {
   const blank = () => ({ changedAt: localIsoMinutes(zone, Date.now()), engineHours: currentHours !== null ? String(currentHours) : '', oilGrade: '', quantity: '', notes: '' });
   const [form, setForm] = useState(blank);
-  const { fields, status, pending, submit } = useSubmit();
+  const { fields, status, pending, submit, canRetry, retry } = useSubmit();
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
 
   async function onSubmit(e: React.FormEvent) {
@@ -31,14 +31,7 @@ export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSa
         <TextField id="ch-quantity" name="quantity" label={`Quantity filled (${volumeLabel(volumeUnit)})`} inputMode="decimal" value={form.quantity} onChange={set('quantity')} error={fields.quantity} />
       </div>
       <TextField id="ch-notes" name="notes" label="Notes" value={form.notes} onChange={set('notes')} error={fields.notes} autoComplete="off" />
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" variant="secondary" disabled={pending}>
-          {pending ? 'Saving…' : 'Record oil change'}
-        </Button>
-        <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
-          {status}
-        </p>
-      </div>
+      <SubmitRow label="Record oil change" pending={pending} status={status} canRetry={canRetry} onRetry={() => void retry()} variant="secondary" />
     </form>
   );
 }
@@ -46,7 +39,7 @@ export function OilChangeForm({ aircraftId, zone, currentHours, volumeUnit, onSa
 export function IntervalForm({ aircraftId, hours, months, onSaved }: { aircraftId: number; hours: number | null; months: number | null; onSaved: () => void }) {
   const [h, setH] = useState(hours !== null ? String(hours) : '');
   const [m, setM] = useState(months !== null ? String(months) : '');
-  const { fields, status, pending, submit } = useSubmit();
+  const { fields, status, pending, submit, canRetry, retry } = useSubmit();
   async function onSubmit(e: React.FormEvent) {
     e.preventDefault();
     await submit(`/api/aircraft/${aircraftId}/oil/settings`, 'PATCH', { oilChangeIntervalHours: h, oilChangeIntervalMonths: m }, 'Interval saved.', () => onSaved());
@@ -59,14 +52,7 @@ export function IntervalForm({ aircraftId, hours, months, onSaved }: { aircraftI
         <TextField id="int-months" name="oilChangeIntervalMonths" label="Or every (months)" inputMode="numeric" value={m} onChange={(e) => setM(e.target.value)} error={fields.oilChangeIntervalMonths} />
       </div>
       <p className="text-xs text-slate-500 dark:text-slate-400">Whichever comes first. Leave one empty to use only the other. Follow the engine manufacturer&apos;s schedule.</p>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" variant="secondary" disabled={pending}>
-          {pending ? 'Saving…' : 'Save interval'}
-        </Button>
-        <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
-          {status}
-        </p>
-      </div>
+      <SubmitRow label="Save interval" pending={pending} status={status} canRetry={canRetry} onRetry={() => void retry()} variant="secondary" />
     </form>
   );
 }

@@ -1,21 +1,21 @@
 'use client';
 // Recording a cold oil check in the person's units, with the level corrected to 15 °C shown as they type.
 import { useState } from 'react';
-import { Button } from '@/components/ui/primitives';
 import { TextField } from '@/components/ui/Field';
 import { correctedLevelL, correctionFraction } from '@/lib/oil/level';
 import { localIsoMinutes } from '@/lib/weather/tz';
 import { fromDisplayTemp, fromDisplayVolume, tempLabel, volumeLabel, type TempUnit, type VolumeUnit } from '@/lib/units';
-import type { OilLog } from '@/lib/data/oil';
+import type { OilLog } from '@/lib/views/oil';
 import { fmtLevel, fmtPercent } from './format';
-import { useSubmit } from './useSubmit';
+import { useSubmit } from '@/components/ui/useSubmit';
+import { SubmitRow } from '@/components/ui/SubmitRow';
 
 const EMPTY = { level: '', oilTemp: '', outsideTemp: '', bladesTurned: '', engineHours: '', added: '', notes: '' };
 const num = (s: string) => Number(s.trim().replace(',', '.').replace('\u2212', '-'));
 
 export function OilCheckForm({ aircraftId, zone, drySump, tempUnit, volumeUnit, onSaved }: { aircraftId: number; zone: string; drySump: boolean; tempUnit: TempUnit; volumeUnit: VolumeUnit; onSaved: (log: OilLog) => void }) {
   const [form, setForm] = useState({ ...EMPTY, checkedAt: localIsoMinutes(zone, Date.now()) });
-  const { fields, status, pending, submit } = useSubmit();
+  const { fields, status, pending, submit, canRetry, retry } = useSubmit();
   const set = (k: keyof typeof form) => (e: React.ChangeEvent<HTMLInputElement>) => setForm((f) => ({ ...f, [k]: e.target.value }));
   const tl = tempLabel(tempUnit);
   const vl = volumeLabel(volumeUnit);
@@ -64,14 +64,7 @@ export function OilCheckForm({ aircraftId, zone, drySump, tempUnit, volumeUnit, 
       <p id="oil-live" className="rounded-lg bg-ice-50 px-3 py-2 text-sm text-ice-900 dark:bg-ice-950 dark:text-ice-100" aria-live="polite">
         {live}
       </p>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending} className="w-full sm:w-auto">
-          {pending ? 'Saving…' : 'Record oil check'}
-        </Button>
-        <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">
-          {status}
-        </p>
-      </div>
+      <SubmitRow label="Record oil check" pending={pending} status={status} canRetry={canRetry} onRetry={() => void retry()} className="w-full sm:w-auto" />
     </form>
   );
 }

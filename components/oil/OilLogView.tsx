@@ -13,7 +13,7 @@ import { fetcher, sendJson } from '@/lib/client/fetcher';
 import { formatDateTime, formatDay, formatTime } from '@/lib/time';
 import { USUAL_MAX_BLADE_TURNS } from '@/lib/oil';
 import type { TempUnit, VolumeUnit } from '@/lib/units';
-import type { OilAircraftChoice, OilLog } from '@/lib/data/oil';
+import type { OilAircraftChoice, OilLog } from '@/lib/views/oil';
 import { HandTurningCautions } from './HandTurningCautions';
 import { OilCheckForm } from './OilCheckForm';
 import { IntervalForm, OilChangeForm } from './OilChangeForm';

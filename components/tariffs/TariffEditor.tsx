@@ -1,11 +1,11 @@
 'use client';
 import { useMemo, useState } from 'react';
 import { Button, Card, Notice } from '@/components/ui/primitives';
-import { ResultNotice, type FormResult } from '@/components/aircraft/ResultNotice';
+import { ResultNotice, type FormResult } from '@/components/ui/ResultNotice';
 import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { localDateOf } from '@/lib/time';
-import type { TariffRecord } from '@/lib/data/tariffs';
+import type { TariffRecord } from '@/lib/views/tariffs';
 import { HOURS, MAX_PERIODS, MONTH_NAMES, MONTHS } from '@/lib/validation/tariffs';
 
 type DayKind = 'weekday' | 'weekend';

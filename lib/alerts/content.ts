@@ -2,9 +2,8 @@
 // safe in client components: the alerts page and the e-mail templates read the same sentences.
 import { formatDay, formatDayTime, formatTime, zoneLabel } from '@/lib/time';
 import { formatTemp, toDisplayDelta, tempLabel, type TempUnit } from '@/lib/units';
-import type { AlertKind } from '@/models/Alert';
 
-export type { AlertKind };
+export type AlertKind = 'oil-too-cold' | 'switch-on' | 'cold-night';
 export type Audience = 'pilot' | 'operator' | 'manager';
 import { READINESS_LABEL, type Readiness } from '@/lib/plans/state';
 export { READINESS_LABEL, type Readiness };

@@ -3,20 +3,11 @@
 // user's chosen zone, else the zone of the organization's first airfield.
 import { Op } from 'sequelize';
 import { db } from '@/models';
-import type { AlertChannel } from '@/models/AlertPreference';
+import type { AlertChannel, Preferences } from '@/lib/views/alerts';
 import type { AlertKind } from '@/models/Alert';
 import type { QuietHours } from '@/lib/mail/quiet';
 
-export interface Preferences {
-  oilTooCold: 'email' | 'app';
-  switchOn: AlertChannel;
-  coldNight: AlertChannel;
-  emailEnabled: boolean;
-  quietStart: string | null;
-  quietEnd: string | null;
-  timeZone: string;
-  reminderLeadMinutes: number;
-}
+export type { Preferences };
 
 export const DEFAULT_LEAD_MINUTES = 30;
 

@@ -39,13 +39,6 @@ export async function requireUser(): Promise<CurrentUser> {
   };
 }
 
-/** The signed-in user, who must hold the permission. */
-export async function requirePermission(permission: Permission): Promise<CurrentUser> {
-  const user = await requireUser();
-  assertCan(user, permission);
-  return user;
-}
-
 export function assertCan(user: Pick<CurrentUser, 'role'>, permission: Permission) {
   if (!can(user.role, permission)) throw new Forbidden();
 }

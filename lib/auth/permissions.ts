@@ -1,6 +1,7 @@
 // Roles and what each may do: one typed map, read by every guard (no if-chains on role names).
-export const ROLES = ['manager', 'operator', 'pilot'] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from '@/lib/roles';
+
+export { ROLES, type Role };
 
 export type Permission =
   | 'org:read' // read the organization's airfields, shelters, aircraft, forecasts

@@ -14,34 +14,12 @@ import {
   type ShelterValues,
 } from '@/lib/validation/airfields';
 import { writeTransaction } from '@/models/transaction';
+import type { AirfieldRow, RemoveResult, ShelterRow } from '@/lib/views/airfields';
+
+export type { AirfieldRow, RemoveResult, ShelterRow };
 
 // Airfields and their shelters, always scoped to one organization. Another organization's record
 // is "not found", never "forbidden": it does not exist for the caller.
-
-export interface ShelterRow extends ShelterValues {
-  id: number;
-  airfieldId: number;
-  archived: boolean;
-  /** Aircraft (not archived) whose home is this shelter. */
-  aircraftCount: number;
-  /** C/G of the shelter air, hours; null for a tie-down. */
-  timeConstantH: number | null;
-}
-
-export interface AirfieldRow {
-  id: number;
-  name: string;
-  ident: string;
-  latitude: number;
-  longitude: number;
-  elevationM: number;
-  timeZone: string;
-  archived: boolean;
-  shelters: ShelterRow[];
-  aircraftCount: number;
-}
-
-export type RemoveResult = { result: 'deleted' } | { result: 'archived'; aircraftCount: number };
 
 function conflictOn(field: string, message: string): AppError {
   return new AppError(409, 'conflict', message, [{ field, message }]);

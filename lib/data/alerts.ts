@@ -6,31 +6,18 @@ import type { OutboxMessage } from '@/models/OutboxMessage';
 import { NotFound } from '@/lib/api/errors';
 import type { Role } from '@/lib/auth/permissions';
 import { kindsFor } from '@/lib/alerts/audience';
-import { preferencesFor, type Preferences } from '@/lib/alerts/preferences';
+import { preferencesFor, } from '@/lib/alerts/preferences';
 import type { AlertData, Audience, OilTooColdData } from '@/lib/alerts/content';
 import type { UnsubscribeKind } from '@/lib/mail/links';
 import type { AlertPreferencesInput } from '@/lib/validation/alerts';
 import { updatePreferences as updateUserPreferences } from './users';
 import { writeTransaction } from '@/models/transaction';
+import type { AlertView, EmailState, PreferencesView } from '@/lib/views/alerts';
+
+export type { AlertView, EmailState, PreferencesView };
 
 // A user's alerts and alert preferences. Alerts belong to one user in one organization: anyone
 // else's is "not found".
-
-export type EmailState = 'sent' | 'queued' | 'held' | 'failed' | 'not-sent' | 'app-only';
-
-export interface AlertView {
-  id: number;
-  kind: AlertKind;
-  title: string;
-  audience: Audience;
-  revision: number;
-  createdAt: string;
-  acknowledgedAt: string | null;
-  resolvedAt: string | null;
-  link: string;
-  data: AlertData;
-  email: { state: EmailState; at: string | null };
-}
 
 function audienceOf(a: Alert): Audience {
   if (a.kind === 'cold-night') return 'manager';
@@ -99,12 +86,6 @@ export async function acknowledgeAll({ orgId, userId, kind, now = new Date() }: 
   const { Alert } = db();
   const [n] = await Alert.update({ acknowledgedAt: now }, { where: { ...unreadWhere(orgId, userId), ...(kind ? { kind } : {}) } });
   return { acknowledged: n, unread: await unreadAlertCount({ orgId, userId }) };
-}
-
-export interface PreferencesView extends Preferences {
-  /** The kinds this user can receive (the form shows only these). */
-  kinds: AlertKind[];
-  tempUnit: 'C' | 'F';
 }
 
 export async function getAlertPreferences({ orgId, userId, role }: { orgId: number; userId: number; role: Role }): Promise<PreferencesView> {

@@ -7,9 +7,13 @@ import { ForecastError, fetchForecast } from '@/lib/weather/openMeteo';
 import { createFakeFetch } from '@/lib/weather/fake';
 import { ageMinutes, isStale, nightLow, toSoakInputs } from '@/lib/weather/derive';
 import type { ForecastHour, HourlyForecast } from '@/lib/weather/types';
-import { simulate, type SoakModel } from '@/lib/thermal';
+import { outsideAt, simulate, type SoakModel } from '@/lib/thermal';
+import { shelterModelOf } from '@/lib/shelter-model';
 import { addDays, localDateKey, localDateOf, sunDay, tonightWindow } from '@/lib/time';
 import { findAirfield, type ShelterRow } from './airfields';
+import type { ForecastStateView, ForecastStatus, ForecastView, ShelterCurve, SunDayView, TonightSummary } from '@/lib/views/forecasts';
+
+export type { ForecastStateView, ForecastStatus, ForecastView, ShelterCurve, SunDayView, TonightSummary };
 
 // The forecast cache: one stored forecast per airfield, refreshed on demand and when older than an
 // hour. When the service fails the last forecast stays in use, marked stale with its age; a failure
@@ -28,8 +32,6 @@ const CHART_STEP_MINUTES = 30;
 const HOUR_MS = 3_600_000;
 const FAKE_BASE_URL = 'http://fake-weather.internal/api/fake-weather';
 
-export type ForecastStatus = 'fresh' | 'stale' | 'missing';
-
 /** What people are told about a failure; the service's own words stay in the server log. */
 const FAILURE_MESSAGE: Record<string, string> = {
   timeout: 'The forecast service did not answer in time.',
@@ -38,52 +40,6 @@ const FAILURE_MESSAGE: Record<string, string> = {
   network: 'The forecast service could not be reached.',
   internal: 'The forecast could not be updated.',
 };
-
-export interface ForecastStateView {
-  status: ForecastStatus;
-  fetchedAt: string | null;
-  ageMinutes: number | null;
-  source: 'fake' | 'remote' | null;
-  /** The last attempt's failure, while no later attempt has succeeded. */
-  error: { kind: string; message: string; at: string } | null;
-}
-
-export interface TonightSummary {
-  from: string;
-  to: string;
-  /** The forecast low of outside air in the night window; null without a forecast covering it. */
-  low: { tempC: number; at: string } | null;
-}
-
-export interface SunDayView {
-  date: string;
-  civilDawn: string | null;
-  sunrise: string | null;
-  sunset: string | null;
-  civilDusk: string | null;
-  polar: 'day' | 'night' | null;
-}
-
-export interface ShelterCurve {
-  shelterId: number;
-  name: string;
-  kind: ShelterRow['kind'];
-  /** Shelter air at each chart time, °C. */
-  airC: number[];
-  /** Lowest shelter air in tonight's window (°C), when the chart covers it. */
-  tonightLowC: number | null;
-}
-
-export interface ForecastView extends ForecastStateView {
-  airfieldId: number;
-  timeZone: string;
-  now: string;
-  tonight: TonightSummary;
-  /** Local days the chart touches, with sunrise, sunset and civil twilight. */
-  sun: SunDayView[];
-  /** Outside air and each shelter's air, every 30 min; null without a forecast. */
-  chart: { atMs: number[]; outsideC: number[]; shelters: ShelterCurve[] } | null;
-}
 
 // ---------------------------------------------------------------------------------------------
 // State of a stored row
@@ -295,44 +251,22 @@ const round2 = (v: number) => Math.round(v * 100) / 100;
 /** The shelter's air over the chart times from the soak model, started at the forecast's first hour. */
 function shelterAir(s: ShelterRow, hours: readonly ForecastHour[], site: { lat: number; lon: number }, times: number[]): number[] {
   const inputs = toSoakInputs(hours);
+  const shelter = shelterModelOf(s);
   // An open tie-down has no air of its own: the engine sits in the outside air.
-  if (s.kind === 'tie-down' || !(s.lossWPerK > 0) || !(s.heatCapacityJPerK > 0)) {
-    return times.map((t) => outsideLinear(inputs.outside, t));
-  }
-  const startMs = inputs.outside[0].atMs;
-  const endMs = times[times.length - 1];
-  const heated = s.kind === 'heated-hangar' && s.setpointC !== null && (s.heatingPowerW ?? 0) > 0;
+  if (shelter.kind === 'tie-down') return times.map((t) => round2(outsideAt(inputs.outside, t)));
   const model: SoakModel = {
-    startMs,
-    endMs,
+    startMs: inputs.outside[0].atMs,
+    endMs: times[times.length - 1],
     outside: inputs.outside,
     cloud: inputs.cloud,
     wind: inputs.wind,
     site,
-    shelter: {
-      kind: 'hangar',
-      heatCapacityJPerK: s.heatCapacityJPerK,
-      lossWPerK: s.lossWPerK,
-      solarApertureM2: s.solarApertureM2,
-      ...(heated ? { setpointC: s.setpointC!, heatingPowerW: s.heatingPowerW! } : {}),
-    },
+    shelter,
     // The shelter air does not feel the engines: any oil node gives the same shelter curve.
     oil: { heatCapacityJPerK: 1e5, lossWPerK: 10, initialTempC: inputs.outside[0].tempC },
   };
   const series = simulate(model, { atMs: times });
   return Array.from(series.shelterC, round2);
-}
-
-function outsideLinear(pts: readonly { atMs: number; tempC: number }[], t: number): number {
-  if (t <= pts[0].atMs) return pts[0].tempC;
-  for (let i = 1; i < pts.length; i++) {
-    if (t <= pts[i].atMs) {
-      const a = pts[i - 1];
-      const b = pts[i];
-      return round2(a.tempC + ((b.tempC - a.tempC) * (t - a.atMs)) / (b.atMs - a.atMs));
-    }
-  }
-  return pts[pts.length - 1].tempC;
 }
 
 function sunView(zone: string, lat: number, lon: number, fromMs: number, toMs: number): SunDayView[] {
@@ -386,7 +320,7 @@ export async function forecastView({
       for (let t = startMs; t < endMs; t += step) atMs.push(t);
       atMs.push(endMs);
       const outside = toSoakInputs(hours).outside;
-      const outsideC = atMs.map((t) => outsideLinear(outside, t));
+      const outsideC = atMs.map((t) => round2(outsideAt(outside, t)));
       const from = Date.parse(tonight.from);
       const to = Date.parse(tonight.to);
       const curves: ShelterCurve[] = shelters

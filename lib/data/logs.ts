@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
 import { db } from '@/models';
-import type { ThermalParams } from '@/models/Aircraft';
+import type { ThermalParams } from '@/lib/views/aircraft';
 import type { TempLog } from '@/models/TempLog';
 import type { ProfileRevision, RevisionKind } from '@/models/ProfileRevision';
 import { Conflict, Invalid, NotFound, TooLarge } from '@/lib/api/errors';
@@ -9,11 +9,14 @@ import { getAircraft, type AircraftRecord } from '@/lib/data/aircraft';
 import { engineFromPreset, ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
 import { readLog, LogRefused, MAX_LOG_BYTES, type ReadResult } from '@/lib/fit/csv';
 import { packSeries, unpackSeries } from '@/lib/fit/pack';
-import { suggestWindow, type SuggestedWindow } from '@/lib/fit/window';
+import { suggestWindow, } from '@/lib/fit/window';
 import { fitCooldown, FitRefused, type FitReport } from '@/lib/fit/cooldown';
 import type { LogSeries, UnitChoice } from '@/lib/fit/types';
 import type { FitRequest } from '@/lib/validation/logs';
 import { writeTransaction } from '@/models/transaction';
+import type { LogPreview, LogRecord, RevisionRecord, SeriesForChart, StoredFit } from '@/lib/views/logs';
+
+export type { LogPreview, LogRecord, RevisionRecord, SeriesForChart, StoredFit };
 
 // Fit from log: uploaded temperature logs of one aircraft, their fits, and the history of the aircraft's
 // thermal profile (apply a fit, go back to any earlier profile). Always scoped to one organization:
@@ -21,57 +24,6 @@ import { writeTransaction } from '@/models/transaction';
 
 const PREVIEW_POINTS = 600;
 
-export interface SeriesForChart {
-  tMs: number[];
-  oilC: number[];
-  ambientC: number[] | null;
-}
-
-export interface LogPreview {
-  fileName: string;
-  sizeBytes: number;
-  rowCount: number;
-  ok: boolean;
-  layout: ReadResult['layout'];
-  problems: ReadResult['problems'];
-  problemCount: number;
-  warnings: string[];
-  sample: string[][];
-  span: { startMs: number; endMs: number } | null;
-  suggestion: SuggestedWindow | null;
-  series: SeriesForChart;
-}
-
-export interface LogRecord {
-  id: number;
-  aircraftId: number;
-  fileName: string;
-  sizeBytes: number;
-  rowCount: number;
-  startAt: string;
-  endAt: string;
-  hasAmbient: boolean;
-  layout: TempLog['layout'];
-  warnings: string[];
-  uploadedBy: { id: number; name: string } | null;
-  uploadedAt: string;
-  window: { startMs: number; endMs: number } | null;
-  coverOn: boolean;
-  fitted: boolean;
-}
-
-export interface RevisionRecord {
-  id: number;
-  kind: RevisionKind;
-  thermal: ThermalParams;
-  tempLogId: number | null;
-  restoredFromId: number | null;
-  summary: Record<string, unknown> | null;
-  note: string;
-  author: { id: number; name: string } | null;
-  createdAt: string;
-  current: boolean;
-}
 
 /** The aircraft's airfield zone (UTC when it has no home shelter). */
 export function zoneOf(a: AircraftRecord): string {
@@ -270,10 +222,6 @@ export function capacitiesFor(a: Pick<AircraftRecord, 'thermal' | 'engineClass' 
   return { total, oil: total * share, engine: total * (1 - share), oilShare: share };
 }
 
-export interface StoredFit extends FitReport {
-  coverOn: boolean;
-  coverFactor: number;
-}
 
 /** Fits the log's cool-down (the given window or the suggested one) and keeps the window and the fit on the log. */
 export async function fitLog({ orgId, aircraftId, logId, input }: { orgId: number; aircraftId: number; logId: number; input: FitRequest }): Promise<{ fit: StoredFit; log: LogRecord }> {

@@ -2,33 +2,15 @@ import 'server-only';
 import { Op, fn, col } from 'sequelize';
 import { db } from '@/models';
 import { NotFound } from '@/lib/api/errors';
-import type { OutboxStatus } from '@/models/OutboxMessage';
+import type { OutboxStatus } from '@/lib/views/mail';
 import type { CapturedMail } from '@/models/CapturedMail';
 import { env } from '@/lib/env';
 import { organizationZone } from '@/lib/alerts/preferences';
+import type { CapturedDetail, CapturedSummary, MailViewerData, OutboxRow, OutboxSummary } from '@/lib/views/mail';
+
+export type { CapturedDetail, CapturedSummary, MailViewerData, OutboxRow, OutboxSummary };
 
 // The local mail capture's messages and the outbox's state, for managers of one organization.
-
-export interface CapturedSummary {
-  id: number;
-  subject: string;
-  from: string;
-  to: string;
-  kind: string | null;
-  receivedAt: string;
-  sizeBytes: number;
-}
-
-export interface CapturedDetail extends CapturedSummary {
-  messageId: string | null;
-  recipients: string[];
-  headers: Record<string, string>;
-  text: string;
-  html: string;
-  raw: string;
-  /** True when single-use links were hidden because the viewer is not the recipient. */
-  redacted: boolean;
-}
 
 // Single-use links (invitation, password reset) are the recipient's alone: anyone else who read one
 // could take the account. The viewer shows them only to the recipient; for everyone else the token is
@@ -98,21 +80,8 @@ export async function getCapturedMail({ orgId, id, viewerEmail }: { orgId: numbe
   };
 }
 
-export interface OutboxRow {
-  id: number;
-  kind: string;
-  to: string;
-  subject: string;
-  status: OutboxStatus;
-  attempts: number;
-  lastError: string | null;
-  nextAttemptAt: string;
-  sentAt: string | null;
-  createdAt: string;
-}
-
 /** Counts by status and the latest messages of the organization's outbox. */
-export async function outboxSummary({ orgId, limit = 20 }: { orgId: number; limit?: number }) {
+export async function outboxSummary({ orgId, limit = 20 }: { orgId: number; limit?: number }): Promise<OutboxSummary> {
   const { OutboxMessage } = db();
   const counts = (await OutboxMessage.findAll({
     where: { organizationId: orgId },
@@ -138,13 +107,6 @@ export async function outboxSummary({ orgId, limit = 20 }: { orgId: number; limi
   return { counts: byStatus, recent };
 }
 
-export interface MailViewerData {
-  transport: 'smtp' | 'capture';
-  /** Times are shown in the organization's zone (its first airfield's). */
-  timeZone: string;
-  messages: CapturedSummary[];
-  outbox: Awaited<ReturnType<typeof outboxSummary>>;
-}
 
 /** Everything the mail viewer lists: captured messages, the outbox's state, where mail goes. */
 export async function mailViewerData({ orgId }: { orgId: number }): Promise<MailViewerData> {

@@ -9,61 +9,18 @@ import { getAircraft, listAircraft, type AircraftRecord } from '@/lib/data/aircr
 import { resolveDepartAt } from '@/lib/data/departures';
 import { zoneOf } from '@/lib/data/logs';
 import { ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
-import { analyseChecks, consumptionSummary, oilChangeDue, type ConsumptionSummary, type OilChangeDue } from '@/lib/oil';
+import { analyseChecks, consumptionSummary, oilChangeDue, } from '@/lib/oil';
 import type { DepartAtInput } from '@/lib/validation/departures';
 import type { OilChangeInput, OilCheckInput, OilSettings } from '@/lib/validation/oil';
+import type { OilAircraftChoice, OilChangeRecord, OilCheckRecord, OilLog } from '@/lib/views/oil';
+
+export type { OilAircraftChoice, OilChangeRecord, OilCheckRecord, OilLog };
 
 // The Oil log: cold oil checks and oil changes of one aircraft, scoped to the organization. Stored in
 // litres and °C; the page converts to the person's units. Corrections and figures come from lib/oil.
 
 /** Entries more than this far ahead of now are refused (a clock a little fast is fine). */
 const FUTURE_SLACK_MS = 10 * 60_000;
-
-export interface OilCheckRecord {
-  id: number;
-  checkedAt: string;
-  levelL: number;
-  correctedL: number;
-  oilTempC: number;
-  outsideTempC: number;
-  bladesTurned: number | null;
-  engineHours: number | null;
-  addedL: number;
-  notes: string;
-  author: { id: number; name: string } | null;
-  oilAgeHours: number | null;
-  oilAgeDays: number | null;
-  sincePreviousLPerH: number | null;
-}
-
-export interface OilChangeRecord {
-  id: number;
-  changedAt: string;
-  engineHours: number;
-  oilGrade: string;
-  quantityL: number | null;
-  notes: string;
-  author: { id: number; name: string } | null;
-}
-
-export interface OilLog {
-  aircraft: Pick<AircraftRecord, 'id' | 'registration' | 'typeLabel' | 'engineClass' | 'engineClassLabel' | 'oilQuantityL' | 'oilChangeIntervalHours' | 'oilChangeIntervalMonths'> & {
-    drySump: boolean;
-    timeZone: string;
-  };
-  checks: OilCheckRecord[];
-  changes: OilChangeRecord[];
-  consumption: ConsumptionSummary;
-  due: OilChangeDue;
-  currentHours: number | null;
-}
-
-export interface OilAircraftChoice {
-  id: number;
-  registration: string;
-  typeLabel: string;
-  airfield: string | null;
-}
 
 type WithAuthor<T> = T & { author?: { id: number; name: string } | null };
 

@@ -2,35 +2,18 @@ import 'server-only';
 import { db } from '@/models';
 import { Tariff } from '@/models/Tariff';
 import { NotFound } from '@/lib/api/errors';
-import { offsetSecondsAt } from '@/lib/time';
+import { tariffPeriodsBetween } from '@/lib/tariffs/expand';
 import { DEFAULT_TARIFF, type TariffInput, type TariffShape } from '@/lib/validation/tariffs';
 import { writeTransaction } from '@/models/transaction';
+import type { PricedInterval, TariffRecord } from '@/lib/views/tariffs';
+
+export type { PricedInterval, TariffRecord };
+export { tariffPeriodsBetween };
 
 export { DEFAULT_TARIFF, type TariffShape };
 
 // Time-of-use tariffs per airfield, scoped to one organization; an airfield with none stored uses
 // DEFAULT_TARIFF (a flat price, marked "default").
-
-const HOUR_MS = 3_600_000;
-/** Longest span tariffPeriodsBetween expands (a guard against runaway loops). */
-const MAX_SPAN_MS = 400 * 24 * HOUR_MS;
-
-export interface TariffRecord extends TariffShape {
-  airfieldId: number;
-  airfieldName: string;
-  /** The airfield's zone: the schedule's hours are local hours there. */
-  timeZone: string;
-  source: 'stored' | 'default';
-  updatedAt: string | null;
-}
-
-export interface PricedInterval {
-  fromMs: number;
-  toMs: number;
-  pricePerKWh: number;
-  /** The period's name ("Night", "Peak" …). */
-  period: string;
-}
 
 async function airfieldOf({ orgId, airfieldId }: { orgId: number; airfieldId: number }) {
   const { Airfield } = db();
@@ -88,40 +71,3 @@ export async function putTariff({ orgId, airfieldId, input }: { orgId: number; a
   });
 }
 
-/** Removes the stored tariff: the airfield goes back to the flat default. */
-export async function clearTariff({ orgId, airfieldId }: { orgId: number; airfieldId: number }): Promise<TariffRecord> {
-  const af = await airfieldOf({ orgId, airfieldId });
-  await Tariff.destroy({ where: { airfieldId: af.id, organizationId: orgId } });
-  return record(af, null);
-}
-
-/**
- * The price over [fromMs, toMs) as consecutive intervals, reading the month × hour schedule in the
- * airfield's local time (weekday or weekend by the local date). Local hours are found from the zone's
- * offset at each instant (Intl), so a daylight-saving change gives a 23- or 25-hour day with the
- * skipped hour absent and the repeated hour priced twice. Adjacent hours of the same period merge.
- * A null tariff is the flat default.
- */
-export function tariffPeriodsBetween({ tariff, timeZone, fromMs, toMs }: { tariff: TariffShape | null; timeZone: string; fromMs: number; toMs: number }): PricedInterval[] {
-  const t = tariff ?? DEFAULT_TARIFF;
-  if (!Number.isFinite(fromMs) || !Number.isFinite(toMs)) throw new RangeError('tariffPeriodsBetween needs finite bounds');
-  if (toMs - fromMs > MAX_SPAN_MS) throw new RangeError('tariffPeriodsBetween spans at most 400 days');
-  const out: PricedInterval[] = [];
-  let at = fromMs;
-  while (at < toMs) {
-    const offsetMs = offsetSecondsAt(timeZone, at) * 1000;
-    const local = new Date(at + offsetMs);
-    const weekend = local.getUTCDay() === 0 || local.getUTCDay() === 6;
-    const idx = (weekend ? t.weekendSchedule : t.weekdaySchedule)[local.getUTCMonth()]?.[local.getUTCHours()] ?? 0;
-    const period = t.periods[idx] ?? t.periods[0];
-    // The next local hour boundary, at the offset in force now; a change of offset there is picked up next turn.
-    let next = Math.floor((at + offsetMs) / HOUR_MS) * HOUR_MS + HOUR_MS - offsetMs;
-    if (next <= at) next = at + HOUR_MS;
-    const end = Math.min(next, toMs);
-    const last = out[out.length - 1];
-    if (last && last.toMs === at && last.pricePerKWh === period.pricePerKWh && last.period === period.name) last.toMs = end;
-    else out.push({ fromMs: at, toMs: end, pricePerKWh: period.pricePerKWh, period: period.name });
-    at = end;
-  }
-  return out;
-}

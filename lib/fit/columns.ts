@@ -22,10 +22,6 @@ const HEATER = /heater|preheat|\bheat\b|heating|lämmitin/;
 const UNIT = /^(units?|unit of measure|scale)$/;
 const TEMP = /temp|°|deg|\bt\d\b|probe|channel|ch ?\d|sensor|celsius|fahrenheit|\u2103|\u2109/;
 
-export function isTimeName(h: string): boolean {
-  return TIME_NAME.test(norm(h));
-}
-
 export function looksLikeHeader(cells: string[]): boolean {
   return cells.some((c) => {
     const n = norm(c);

@@ -77,18 +77,3 @@ function addNoise(o: SyntheticOptions, tS: Float64Array, clean: Float64Array, am
   };
 }
 
-/** A series written as CSV text (header, ISO local or other time formats chosen by the caller). */
-export function toCsv(s: LogSeries, o: { header: string[]; time: (ms: number) => string; digits?: number; delimiter?: string; decimalComma?: boolean; convert?: (c: number) => number }): string {
-  const d = o.delimiter ?? ',';
-  const f = (v: number) => {
-    const x = (o.convert ?? ((c: number) => c))(v).toFixed(o.digits ?? 2);
-    return o.decimalComma ? x.replace('.', ',') : x;
-  };
-  const lines = [o.header.join(d)];
-  for (let i = 0; i < s.t.length; i++) {
-    const cells = [o.time(s.t[i]), f(s.oil[i])];
-    if (s.ambient && o.header.length > 2) cells.push(Number.isNaN(s.ambient[i]) ? '' : f(s.ambient[i]));
-    lines.push(cells.join(d));
-  }
-  return lines.join('\n') + '\n';
-}

@@ -5,7 +5,7 @@ import { z } from 'zod';
 import { db } from '@/models';
 import type { ShelterKind } from '@/models/Shelter';
 import type { Role } from '@/lib/auth/permissions';
-import { aircraftDefaultsFor, shelterDefaultsFor } from './defaults';
+import { aircraftDefaultsFor, shelterDefaultsFor } from '@/lib/defaults';
 import { seedPlanning } from './planning';
 import { seedOilLog } from './oil';
 import { seedAlerts } from './alerts';

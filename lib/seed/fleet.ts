@@ -10,7 +10,7 @@ import { writeTransaction } from '@/models/transaction';
 import { ENGINE_CLASSES, ENGINE_CLASS_IDS, type EngineClassId } from '@/lib/thermal/presets';
 import { DEFAULT_SLOT_MINUTES, type HeaterControl } from '@/lib/validation/aircraft';
 import { addDays, localDateOf, zonedTimeToUtc } from '@/lib/time';
-import { aircraftDefaultsFor } from './defaults';
+import { aircraftDefaultsFor } from '@/lib/defaults';
 
 export const FLEET_PREFIX = 'Q-F';
 export const FLEET_MAX = 9999;

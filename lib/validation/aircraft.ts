@@ -176,7 +176,6 @@ export const aircraftCreateSchema = z.object({
   ...makerFields,
 });
 export type AircraftCreate = z.infer<typeof aircraftCreateSchema>;
-export type AircraftCreateInput = z.input<typeof aircraftCreateSchema>;
 
 /**
  * A change: any of the fields. `heaters` and `pilotIds`, when given, replace the whole list.

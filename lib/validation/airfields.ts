@@ -3,14 +3,14 @@
 // as a point). Every issue carries its field's path, so errors show beside the field.
 import { z } from 'zod';
 import { toNumberInput } from './numbers';
-import type { ShelterKind } from '@/models/Shelter';
-import { shelterDefaultsFor } from '@/lib/seed/defaults';
+import type { ShelterKind } from '@/lib/thermal/presets';
+import { shelterDefaultsFor } from '@/lib/defaults';
 import { canonicalTimeZone } from '@/lib/time';
 import { text } from './text';
 
 export type { ShelterKind };
 
-/** The shelter kinds, in the order forms offer them (the same values as the model's; no model import, so forms stay light). */
+/** The shelter kinds, in the order forms offer them. The one list: models/Shelter.ts takes it from here; the type is the soak model's (lib/thermal/presets.ts). */
 export const SHELTER_KINDS = ['heated-hangar', 'unheated-hangar', 't-hangar', 'tie-down'] as const satisfies readonly ShelterKind[];
 type Exhaustive<T extends ShelterKind> = [ShelterKind] extends [T] ? true : never;
 const exhaustive: Exhaustive<(typeof SHELTER_KINDS)[number]> = true;
@@ -162,7 +162,6 @@ export function completeShelter(s: ShelterDraft): ShelterValues {
 
 /** A new shelter (or a whole shelter after a change): thermal values optional, prefilled from the kind. */
 export const shelterSchema = z.object(shelterFields).superRefine(checkShelter).transform(completeShelter);
-export type ShelterInput = z.input<typeof shelterSchema>;
 
 /** A change to a shelter: any of its fields. The handler merges it with the stored shelter and checks the whole with shelterSchema. */
 export const shelterUpdateSchema = z
@@ -192,7 +191,6 @@ export const airfieldCreateSchema = z.object({
     .default([]),
 });
 export type AirfieldCreate = z.infer<typeof airfieldCreateSchema>;
-export type AirfieldCreateInput = z.input<typeof airfieldCreateSchema>;
 
 export const airfieldUpdateSchema = z
   .object({

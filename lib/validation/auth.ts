@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ROLES } from '@/lib/auth/permissions';
+import { ROLES } from '@/lib/roles';
 import { text } from './text';
 
 export const email = text().trim().toLowerCase().email('Enter a valid e-mail address.').max(254);
@@ -8,13 +8,6 @@ export const password = text().min(10, 'Use at least 10 characters.').max(200, '
 export const signInSchema = z.object({
   email: text().trim().toLowerCase().max(254),
   password: text().max(200),
-});
-
-export const createUserSchema = z.object({
-  name: text().trim().min(1, 'Enter a name.').max(120, 'Use at most 120 characters.'),
-  email,
-  role: z.enum(ROLES),
-  temporaryPassword: password,
 });
 
 export const updateUserSchema = z

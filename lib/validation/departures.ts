@@ -66,7 +66,6 @@ export const departureCreateSchema = z.object({
   notes: notes.default(''),
 });
 export type DepartureCreate = z.infer<typeof departureCreateSchema>;
-export type DepartureCreateInput = z.input<typeof departureCreateSchema>;
 
 export const departureUpdateSchema = z
   .object({
@@ -106,4 +105,3 @@ export const departureListQuery = z
     cancelled: z.enum(['0', '1']).optional(),
   })
   .refine((q) => q.from === undefined || q.to === undefined || q.to > q.from, { message: 'The end must come after the start.', path: ['to'] });
-export type DepartureListQuery = z.infer<typeof departureListQuery>;

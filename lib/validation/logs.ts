@@ -14,7 +14,6 @@ export const logUploadQuery = z.object({
     .default('log.csv'),
   unit: z.enum(TEMP_UNIT_CHOICES, { error: 'Choose the unit: Detect, °C or °F.' }).default('auto'),
 });
-export type LogUploadQuery = z.infer<typeof logUploadQuery>;
 
 const bool = (what: string) => z.boolean({ error: `Say whether ${what} (true or false).` });
 
@@ -38,7 +37,6 @@ export const applyFitSchema = z.strictObject({
   model: z.enum(['one-node', 'two-node'], { error: 'Choose the one-node or the two-node fit.' }),
   note: multilineText({ error: 'The note is text.' }).trim().max(500, 'Use at most 500 characters.').default(''),
 });
-export type ApplyFit = z.infer<typeof applyFitSchema>;
 
 export const revertSchema = z.strictObject({
   revisionId: idSchema('a profile revision'),

@@ -112,7 +112,5 @@ export const planInputSchema = simulationInputSchema
     }
   });
 
-/** The contract as received. */
-export type PlanHttpRequest = z.input<typeof planInputSchema>;
 /** The contract after validation. */
 export type PlanInput = z.output<typeof planInputSchema>;

@@ -30,11 +30,6 @@ export function uniformSchedule(hours: number[]): number[][] {
   return Array.from({ length: MONTHS }, () => [...hours]);
 }
 
-/** A flat tariff: one period at one price, every hour. */
-export function flatTariff(currency: string, pricePerKWh: number, name = 'Flat'): TariffShape {
-  return { currency, periods: [{ name, pricePerKWh }], weekdaySchedule: uniformSchedule(Array(HOURS).fill(0)), weekendSchedule: uniformSchedule(Array(HOURS).fill(0)) };
-}
-
 const periodSchema = z.object({
   name: text({ error: 'Name the period.' }).trim().min(1, 'Name the period (e.g. Night).').max(40, 'Use at most 40 characters.'),
   pricePerKWh: numberIn('price per kWh', 0, 10),

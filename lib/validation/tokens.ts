@@ -1,6 +1,6 @@
 // Invitations, password resets and their single-use tokens: schemas for the forms and route handlers.
 import { z } from 'zod';
-import { ROLES } from '@/lib/auth/permissions';
+import { ROLES } from '@/lib/roles';
 import { email, password } from './auth';
 import { text } from './text';
 
@@ -15,7 +15,6 @@ export const inviteUserSchema = z.object({
   role: z.enum(ROLES, { error: 'Choose a role.' }),
   temporaryPassword: password.optional(),
 });
-export type InviteUserInput = z.infer<typeof inviteUserSchema>;
 
 const newPassword = z
   .object({ password, confirm: text().max(200).optional() })

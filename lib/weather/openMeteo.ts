@@ -72,7 +72,6 @@ export const OpenMeteoResponseSchema = z.object({
   hourly_units: UnitsSchema,
   hourly: HourlySchema,
 });
-export type ParsedOpenMeteoResponse = z.infer<typeof OpenMeteoResponseSchema>;
 
 // ---------------------------------------------------------------------------------------------
 // Units

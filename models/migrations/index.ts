@@ -6,8 +6,10 @@ import * as m004 from './004-logs-and-oil';
 import * as m005 from './005-alerts-mail';
 import * as m006 from './006-plan-unique';
 import * as m007 from './007-session-version';
-import * as m008 from './008-start-window';
+import * as m008 from './008-rate-limits';
+import * as m008w from './008-start-window';
 import * as m009 from './009-outcomes';
+import * as m010 from './010-devices';
 
 export interface Migration {
   name: string;
@@ -25,6 +27,8 @@ export const migrations: Migration[] = [
   { name: '005-alerts-mail', ...m005 },
   { name: '006-plan-unique', ...m006 },
   { name: '007-session-version', ...m007 },
-  { name: '008-start-window', ...m008 },
+  { name: '008-rate-limits', ...m008 },
+  { name: '008-start-window', ...m008w },
   { name: '009-outcomes', ...m009 },
+  { name: '010-devices', ...m010 },
 ];

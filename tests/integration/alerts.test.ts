@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Op } from 'sequelize';
 import { DEMO, call, freshDatabase, signInAs, signOut } from './helpers';
-import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../unit/mail/testSmtp';
+import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../support/smtp';
 
 // The alerts end to end against a real SMTP server (smtp-server on 127.0.0.1, port 0): evaluation on the
 // seeded demo writes alerts and outbox rows, delivery sends them through nodemailer via SMTP_URL.
@@ -201,7 +201,7 @@ describe('cold-night notice', () => {
     const mails = to(DEMO.manager).filter((m) => m.subject.startsWith('Cold night:'));
     expect(mails).toHaveLength(1);
     const m = mails[0];
-    expect(m.subject).toMatch(/^Cold night: -?\d+ °C forecast at .+ and 2 other airfields$/);
+    expect(m.subject).toMatch(/^Cold night: −?\d+ °C forecast at .+ and 2 other airfields$/);
     for (const name of ['Kettle Lake', 'Birchmoor', 'Stonegate Strip']) expect(m.text).toContain(name);
     expect(m.text).toContain('Aircraft that need heat');
     expect(m.text).toMatch(/Total planned\s+\d+(\.\d)? kWh/);

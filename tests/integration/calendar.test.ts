@@ -21,14 +21,14 @@ async function fetchFeed(url: string) {
 describe('iCalendar feed of switch-on events', () => {
   it('is for operators: a pilot is refused (403), nobody signed in is 401', async () => {
     signOut();
-    expect((await call(feeds.GET as never)).status).toBe(401);
+    expect((await call(feeds.GET)).status).toBe(401);
     await signInAs(DEMO.pilot);
-    expect((await call(feeds.POST as never, { method: 'POST', body: {} })).status).toBe(403);
+    expect((await call(feeds.POST, { method: 'POST', body: {} })).status).toBe(403);
   });
 
   it('serves switch-on events at a secret URL until revoked', async () => {
     await signInAs(DEMO.operator);
-    const made = await call(feeds.POST as never, { method: 'POST', body: {} });
+    const made = await call(feeds.POST, { method: 'POST', body: {} });
     expect(made.status).toBe(201);
     const got = await fetchFeed(made.body.url);
     expect(got.status).toBe(200);
@@ -36,7 +36,7 @@ describe('iCalendar feed of switch-on events', () => {
     expect(got.text).toContain('BEGIN:VEVENT');
     expect(got.text).toMatch(/SUMMARY:Switch on .*: Q-/);
     expect(got.text).toContain('BEGIN:VALARM');
-    const revoked = await call(feed.DELETE as never, { method: 'DELETE', params: { id: String(made.body.id) } });
+    const revoked = await call(feed.DELETE, { method: 'DELETE', params: { id: String(made.body.id) } });
     expect(revoked.status).toBe(200);
     expect((await fetchFeed(made.body.url)).status).toBe(404);
   });
@@ -46,7 +46,7 @@ describe('iCalendar feed of switch-on events', () => {
     const { db } = await import('@/models');
     const other = await db().Airfield.findOne({ where: { organizationId: 2 } });
     await signInAs(DEMO.operator);
-    expect((await call(feeds.POST as never, { method: 'POST', body: { airfieldId: other!.id } })).status).toBe(404);
-    expect((await call(feeds.POST as never, { method: 'POST', body: { airfieldId: 'x' } })).status).toBe(422);
+    expect((await call(feeds.POST, { method: 'POST', body: { airfieldId: other!.id } })).status).toBe(404);
+    expect((await call(feeds.POST, { method: 'POST', body: { airfieldId: 'x' } })).status).toBe(422);
   });
 });

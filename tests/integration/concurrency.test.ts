@@ -49,7 +49,7 @@ describe('simultaneous writes', () => {
     const id = await aircraftId('Q-KAPA');
     const before = await models.Departure.count({ where: { aircraftId: id } });
     // Days 8 … 57: beyond the seeded week and within the 60 days one may book ahead.
-    const res = await Promise.all(Array.from({ length: 50 }, (_, i) => call(departures.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(8 + i)}T07:30` } })));
+    const res = await Promise.all(Array.from({ length: 50 }, (_, i) => call(departures.POST, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(8 + i)}T07:30` } })));
     expect(tally(res.map((r) => r.status))).toEqual({ 201: 50 });
     expect(await models.Departure.count({ where: { aircraftId: id } })).toBe(before + 50);
   });
@@ -60,7 +60,7 @@ describe('simultaneous writes', () => {
     const before = await models.Departure.count({ where: { aircraftId: id } });
     const day = localDay(20);
     const res = await Promise.all(
-      Array.from({ length: 50 }, (_, i) => call(departures.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${day}T${String(6 + (i % 10)).padStart(2, '0')}:${String(i % 60).padStart(2, '0')}` } })),
+      Array.from({ length: 50 }, (_, i) => call(departures.POST, { method: 'POST', body: { aircraftId: id, departAt: `${day}T${String(6 + (i % 10)).padStart(2, '0')}:${String(i % 60).padStart(2, '0')}` } })),
     );
     expect(tally(res.map((r) => r.status))).toEqual({ 201: 1, 409: 49 });
     expect(await models.Departure.count({ where: { aircraftId: id } })).toBe(before + 1);
@@ -69,13 +69,13 @@ describe('simultaneous writes', () => {
   it('50 changes of one departure: 50 × 200 and the last write wins', async () => {
     await signInAs(DEMO.operator);
     const id = await aircraftId('Q-SIPI');
-    const made = await call(departures.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(25)}T08:00` } });
+    const made = await call(departures.POST, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(25)}T08:00` } });
     expect(made.status).toBe(201);
     const depId = String(made.body.departure.id);
     const finished: string[] = [];
     const res = await Promise.all(
       Array.from({ length: 50 }, async (_, i) => {
-        const r = await call(departure.PATCH as never, { method: 'PATCH', params: { id: depId }, body: { notes: `change ${i}` } });
+        const r = await call(departure.PATCH, { method: 'PATCH', params: { id: depId }, body: { notes: `change ${i}` } });
         if (r.status === 200) finished.push(r.body.departure.notes);
         return r;
       }),
@@ -89,7 +89,7 @@ describe('simultaneous writes', () => {
   it('50 invitations of one address: 1 × 201 and 49 × 409, one user and one invitation e-mail', async () => {
     await signInAs(DEMO.manager);
     const email = 'new.member@frostvale.test';
-    const res = await Promise.all(Array.from({ length: 50 }, () => call(users.POST as never, { method: 'POST', body: { name: 'New Member', email, role: 'pilot' } })));
+    const res = await Promise.all(Array.from({ length: 50 }, () => call(users.POST, { method: 'POST', body: { name: 'New Member', email, role: 'pilot' } })));
     expect(tally(res.map((r) => r.status))).toEqual({ 201: 1, 409: 49 });
     const u = await models.User.findAll({ where: { email } });
     expect(u).toHaveLength(1);
@@ -101,7 +101,7 @@ describe('simultaneous writes', () => {
     const me = await signInAs('pilot2@frostvale.test');
     await models.AlertPreference.destroy({ where: { userId: me.id } });
     const res = await Promise.all(
-      Array.from({ length: 20 }, (_, i) => call(alertPrefs.PUT as never, { method: 'PUT', body: { reminderLeadMinutes: 30 + i, quietStart: '22:00', quietEnd: '06:00' } })),
+      Array.from({ length: 20 }, (_, i) => call(alertPrefs.PUT, { method: 'PUT', body: { reminderLeadMinutes: 30 + i, quietStart: '22:00', quietEnd: '06:00' } })),
     );
     expect(tally(res.map((r) => r.status))).toEqual({ 200: 20 });
     expect(await models.AlertPreference.count({ where: { userId: me.id } })).toBe(1);
@@ -114,9 +114,9 @@ describe('simultaneous writes', () => {
     const id = await aircraftId('Q-TAIMI');
     const before = await models.Departure.count({ where: { aircraftId: id } });
     const [reads, runs, bookings] = await Promise.all([
-      Promise.all(Array.from({ length: 20 }, () => call(board.GET as never))),
+      Promise.all(Array.from({ length: 20 }, () => call(board.GET))),
       Promise.all(Array.from({ length: 3 }, () => job.run({ now: new Date(), holder: 'test' }))),
-      Promise.all(Array.from({ length: 10 }, (_, i) => call(departures.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(30 + i)}T07:00` } }))),
+      Promise.all(Array.from({ length: 10 }, (_, i) => call(departures.POST, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(30 + i)}T07:00` } }))),
     ]);
     expect(tally(reads.map((r) => r.status))).toEqual({ 200: 20 });
     expect(tally(bookings.map((r) => r.status))).toEqual({ 201: 10 });

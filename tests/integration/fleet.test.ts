@@ -55,7 +55,7 @@ describe('fleet seed', () => {
     await expect(seedFleet({ count: 0 })).rejects.toThrow(/fleet size/);
     await signInAs(DEMO.operator);
     const board = await import('@/app/api/board/route');
-    const r = await call(board.GET as never);
+    const r = await call(board.GET);
     expect(r.status).toBe(200);
     const regs = (r.body.plans as { aircraft: { registration: string } }[]).map((p) => p.aircraft.registration).filter((x) => x.startsWith('Q-F'));
     expect(regs).toHaveLength(35);

@@ -60,7 +60,7 @@ describe('the forecast cache against the local fake (in-process)', () => {
   it('a first read fetches, stores and answers a fresh forecast with tonight’s low and 48 h of shelter curves', async () => {
     await signInAs(DEMO.pilot);
     expect(await row()).toBeNull();
-    const r = await call(route.GET as never, { params: { id: String(kettle.id) } });
+    const r = await call(route.GET, { params: { id: String(kettle.id) } });
     expect(r.status).toBe(200);
     const f = r.body.forecast;
     expect(f).toMatchObject({ status: 'fresh', source: 'fake', error: null, timeZone: 'Europe/Helsinki' });
@@ -103,7 +103,7 @@ describe('the forecast cache against the local fake (in-process)', () => {
   it('POST forces a refresh for any role that reads the airfield', async () => {
     await signInAs(DEMO.operator);
     const before = (await row())!.fetchedAt!.getTime();
-    const r = await call(route.POST as never, { method: 'POST', params: { id: String(kettle.id) } });
+    const r = await call(route.POST, { method: 'POST', params: { id: String(kettle.id) } });
     expect(r.status).toBe(200);
     expect(r.body.forecast.status).toBe('fresh');
     expect((await row())!.fetchedAt!.getTime()).not.toBe(before);
@@ -111,7 +111,7 @@ describe('the forecast cache against the local fake (in-process)', () => {
 
   it('the map list carries each airfield’s tonight low and forecast state', async () => {
     await signInAs(DEMO.manager);
-    const r = await call(list.GET as never, { url: '/api/airfields?forecast=tonight' });
+    const r = await call(list.GET, { url: '/api/airfields?forecast=tonight' });
     expect(r.status).toBe(200);
     for (const a of r.body.airfields) {
       expect(a.forecast.status).toBe('fresh');
@@ -131,7 +131,7 @@ describe('when the service fails, the last forecast is kept and marked stale', (
     setEnv({ FAKE_FORECAST_FAULT: fault });
     await signInAs(DEMO.pilot);
     const before = (await row())!;
-    const r = await call(route.POST as never, { method: 'POST', params: { id: String(kettle.id) } });
+    const r = await call(route.POST, { method: 'POST', params: { id: String(kettle.id) } });
     expect(r.status).toBe(200);
     const f = r.body.forecast;
     expect(f.status).toBe('stale');
@@ -168,18 +168,18 @@ describe('when the service fails, the last forecast is kept and marked stale', (
   it('an airfield whose first fetch fails answers "missing" with the failure, and nothing crashes', async () => {
     setEnv({ FAKE_FORECAST_FAULT: 'malformed' });
     await signInAs(DEMO.manager);
-    const created = await call(list.POST as never, {
+    const created = await call(list.POST, {
       method: 'POST',
       body: { name: 'Fen Corner', ident: 'XFEN', latitude: 60.4, longitude: 22.3, elevationM: 40, timeZone: 'Europe/Helsinki' },
     });
     const id = created.body.airfield.id;
-    const r = await call(route.GET as never, { params: { id: String(id) } });
+    const r = await call(route.GET, { params: { id: String(id) } });
     expect(r.status).toBe(200);
     expect(r.body.forecast).toMatchObject({ status: 'missing', chart: null, fetchedAt: null });
     expect(r.body.forecast.error.kind).toBe('malformed');
     expect(r.body.forecast.tonight.low).toBeNull();
     setEnv({ FAKE_FORECAST_FAULT: 'none' });
-    const ok = await call(route.POST as never, { method: 'POST', params: { id: String(id) } });
+    const ok = await call(route.POST, { method: 'POST', params: { id: String(id) } });
     expect(ok.body.forecast.status).toBe('fresh');
   });
 
@@ -187,11 +187,11 @@ describe('when the service fails, the last forecast is kept and marked stale', (
     await signInAs(DEMO.manager);
     const af = (await models.Airfield.findOne({ where: { ident: 'XFEN' } }))!;
     setEnv({ FAKE_FORECAST_FAULT: 'error500' });
-    await call(item.PATCH as never, { method: 'PATCH', params: { id: String(af.id) }, body: { latitude: 60.9 } });
-    const r = await call(route.POST as never, { method: 'POST', params: { id: String(af.id) } });
+    await call(item.PATCH, { method: 'PATCH', params: { id: String(af.id) }, body: { latitude: 60.9 } });
+    const r = await call(route.POST, { method: 'POST', params: { id: String(af.id) } });
     expect(r.body.forecast.status).toBe('missing');
     setEnv({ FAKE_FORECAST_FAULT: 'none' });
-    const ok = await call(route.POST as never, { method: 'POST', params: { id: String(af.id) } });
+    const ok = await call(route.POST, { method: 'POST', params: { id: String(af.id) } });
     expect(ok.body.forecast.status).toBe('fresh');
     expect((await row(af.id))!.latitude).toBe(60.9);
   });
@@ -201,7 +201,7 @@ describe('a configured forecast service over HTTP', () => {
   it('fetches from FORECAST_BASE_URL (here the fake on a loopback port)', async () => {
     setEnv({ FORECAST_BASE_URL: serverUrl });
     await signInAs(DEMO.pilot);
-    const r = await call(route.POST as never, { method: 'POST', params: { id: String(kettle.id) } });
+    const r = await call(route.POST, { method: 'POST', params: { id: String(kettle.id) } });
     expect(r.body.forecast).toMatchObject({ status: 'fresh', source: 'fake' });
     setEnv({ FORECAST_BASE_URL: undefined });
   });
@@ -213,7 +213,7 @@ describe('a configured forecast service over HTTP', () => {
     await new Promise((r) => closed.close(r));
     setEnv({ FORECAST_BASE_URL: `http://127.0.0.1:${port}/` });
     await signInAs(DEMO.pilot);
-    const r = await call(route.POST as never, { method: 'POST', params: { id: String(kettle.id) } });
+    const r = await call(route.POST, { method: 'POST', params: { id: String(kettle.id) } });
     expect(r.status).toBe(200);
     expect(r.body.forecast).toMatchObject({ status: 'stale' });
     expect(r.body.forecast.error.kind).toBe('network');
@@ -226,7 +226,7 @@ describe('the fake served by the app', () => {
   const url = '/api/fake-weather/v1/forecast?latitude=61.52&longitude=23.96&hourly=temperature_2m,dew_point_2m,wind_speed_10m,cloud_cover&timezone=Europe%2FHelsinki&forecast_days=2';
 
   it('answers in the Open-Meteo /v1/forecast format: parallel hourly arrays with units (its API docs)', async () => {
-    const r = await call(fakeRoute.GET as never, { url });
+    const r = await call(fakeRoute.GET, { url });
     expect(r.status).toBe(200);
     expect(r.body.hourly_units.temperature_2m).toBe('°C');
     expect(r.body.hourly.time).toHaveLength(48);
@@ -235,14 +235,14 @@ describe('the fake served by the app', () => {
   });
 
   it('answers a bad request with 400 and the service’s error body', async () => {
-    const r = await call(fakeRoute.GET as never, { url: '/api/fake-weather/v1/forecast?latitude=91&longitude=0' });
+    const r = await call(fakeRoute.GET, { url: '/api/fake-weather/v1/forecast?latitude=91&longitude=0' });
     expect(r.status).toBe(400);
     expect(r.body.error).toBe(true);
   });
 
   it('is switched off (404) when a real service is configured', async () => {
     setEnv({ FORECAST_BASE_URL: 'https://forecast.example.test' });
-    expect((await call(fakeRoute.GET as never, { url })).status).toBe(404);
+    expect((await call(fakeRoute.GET, { url })).status).toBe(404);
     setEnv({ FORECAST_BASE_URL: undefined });
   });
 });

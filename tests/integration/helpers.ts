@@ -55,17 +55,33 @@ export function signOut() {
   setClaims(null);
 }
 
-type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+/** Any route handler: apiRoute()'s, next-auth's, a plain `GET(req)`. */
+type RouteHandler = (req: Request, ctx: any) => Response | Promise<Response>;
+/** The route parameters a handler reads (`{ id: string }` …), from its own signature. */
+type ParamsOf<H> = [H] extends [never]
+  ? Record<string, string>
+  : H extends (req: Request, ctx: infer C) => unknown
+    ? NonNullable<C> extends { params?: infer P }
+      ? Awaited<P>
+      : Record<string, string>
+    : Record<string, string>;
+
+export interface CallOptions<P> {
+  method?: string;
+  url?: string;
+  body?: unknown;
+  rawBody?: BodyInit;
+  params?: P;
+  headers?: Record<string, string | null>;
+}
 
 /**
  * Calls a route handler as Next.js would, and returns the status and the parsed JSON body. By default
  * the request looks like the app's own page calling its API (Origin http://localhost, Sec-Fetch-Site
- * same-origin, JSON); `headers` replaces any of them (a null value leaves that header out).
+ * same-origin, JSON); `headers` replaces any of them (a null value leaves that header out). Generic
+ * over the handler: pass the route module's export as it is (no cast); `params` is typed from it.
  */
-export async function call(
-  handler: Handler,
-  opts: { method?: string; url?: string; body?: unknown; rawBody?: BodyInit; params?: Record<string, string>; headers?: Record<string, string | null> } = {},
-) {
+export async function call<H extends RouteHandler>(handler: H, opts: CallOptions<ParamsOf<H>> = {}) {
   const url = `http://localhost${opts.url ?? '/api/test'}`;
   const headers: Record<string, string> = {};
   const wanted: Record<string, string | null> = { 'content-type': 'application/json', origin: 'http://localhost', 'sec-fetch-site': 'same-origin', ...opts.headers };

@@ -50,7 +50,7 @@ describe('uploading a logger CSV', () => {
     await signInAs(DEMO.pilot);
     expect((await upload(preview.POST as Handler, id, DEMO_CSV)).status).toBe(403);
     expect((await upload(logs.POST as Handler, id, DEMO_CSV)).status).toBe(403);
-    expect((await call(logs.GET as never, { params: { id } })).status).toBe(403);
+    expect((await call(logs.GET, { params: { id } })).status).toBe(403);
   });
 
   it('previews the demo log: columns, unit, zone, no problems and the suggested cool-down from the shutdown', async () => {
@@ -117,7 +117,7 @@ describe('uploading a logger CSV', () => {
     expect(r.body.log.rowCount).toBe(861);
     const row = await models.TempLog.findByPk(r.body.log.id);
     expect(row!.points.byteLength).toBeLessThan(DEMO_CSV.byteLength);
-    const list = await call(logs.GET as never, { params: { id } });
+    const list = await call(logs.GET, { params: { id } });
     expect(list.body.logs.map((l: { id: number }) => l.id)).toContain(r.body.log.id);
     expect(list.body.logs[0].points).toBeUndefined();
   });
@@ -128,14 +128,14 @@ describe('uploading a logger CSV', () => {
     const logId = String((await models.TempLog.findOne())!.id);
     expect((await upload(preview.POST as Handler, id, DEMO_CSV)).status).toBe(404);
     expect((await upload(logs.POST as Handler, id, DEMO_CSV)).status).toBe(404);
-    expect((await call(logs.GET as never, { params: { id } })).status).toBe(404);
-    expect((await call(oneLog.GET as never, { params: { id, logId } })).status).toBe(404);
-    expect((await call(fit.POST as never, { method: 'POST', body: {}, params: { id, logId } })).status).toBe(404);
-    expect((await call(profile.GET as never, { params: { id } })).status).toBe(404);
-    expect((await call(apply.POST as never, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } })).status).toBe(404);
+    expect((await call(logs.GET, { params: { id } })).status).toBe(404);
+    expect((await call(oneLog.GET, { params: { id, logId } })).status).toBe(404);
+    expect((await call(fit.POST, { method: 'POST', body: {}, params: { id, logId } })).status).toBe(404);
+    expect((await call(profile.GET, { params: { id } })).status).toBe(404);
+    expect((await call(apply.POST, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } })).status).toBe(404);
     // Their own aircraft with this organization's log id: still not found.
     const own = await idOf('Q-RIDGE');
-    expect((await call(oneLog.GET as never, { params: { id: own, logId } })).status).toBe(404);
+    expect((await call(oneLog.GET, { params: { id: own, logId } })).status).toBe(404);
     expect(await models.TempLog.count()).toBe(1);
   });
 });
@@ -152,22 +152,22 @@ describe('fitting and applying', () => {
 
   it('refuses to apply a log that was never fitted (409)', async () => {
     await signInAs(DEMO.operator);
-    const r = await call(apply.POST as never, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } });
+    const r = await call(apply.POST, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } });
     expect(r.status).toBe(409);
   });
 
   it('validates the fit request: 422 naming the field', async () => {
     await signInAs(DEMO.operator);
-    const back = await call(fit.POST as never, { method: 'POST', body: { window: { start: '2026-11-25T04:00:00Z', end: '2026-11-24T16:00:00Z' } }, params: { id, logId } });
+    const back = await call(fit.POST, { method: 'POST', body: { window: { start: '2026-11-25T04:00:00Z', end: '2026-11-24T16:00:00Z' } }, params: { id, logId } });
     expect(back.status).toBe(422);
     expect(back.body.fields[0].field).toBe('window.end');
-    const junk = await call(fit.POST as never, { method: 'POST', body: { heatCapacityJPerK: 'lots', extra: 1 }, params: { id, logId } });
+    const junk = await call(fit.POST, { method: 'POST', body: { heatCapacityJPerK: 'lots', extra: 1 }, params: { id, logId } });
     expect(junk.status).toBe(422);
     expect(junk.body.fields.map((f: { field: string }) => f.field)).toEqual(expect.arrayContaining(['heatCapacityJPerK']));
-    const outside = await call(fit.POST as never, { method: 'POST', body: { window: { start: '2025-01-01T00:00:00Z', end: '2025-01-02T00:00:00Z' } }, params: { id, logId } });
+    const outside = await call(fit.POST, { method: 'POST', body: { window: { start: '2025-01-01T00:00:00Z', end: '2025-01-02T00:00:00Z' } }, params: { id, logId } });
     expect(outside.status).toBe(422);
     expect(outside.body.fields[0].field).toBe('window.start');
-    const short = await call(fit.POST as never, { method: 'POST', body: { window: { start: '2026-11-24T15:40:00Z', end: '2026-11-24T15:50:00Z' } }, params: { id, logId } });
+    const short = await call(fit.POST, { method: 'POST', body: { window: { start: '2026-11-24T15:40:00Z', end: '2026-11-24T15:50:00Z' } }, params: { id, logId } });
     expect(short.status).toBe(422);
     expect(short.body.fields[0].field).toBe('window');
     noTrace(short.text);
@@ -175,7 +175,7 @@ describe('fitting and applying', () => {
 
   it('fits the suggested window: one node and two nodes with RMSE, R² and uncertainties, kept on the log', async () => {
     await signInAs(DEMO.operator);
-    const r = await call(fit.POST as never, { method: 'POST', body: {}, params: { id, logId } });
+    const r = await call(fit.POST, { method: 'POST', body: {}, params: { id, logId } });
     expect(r.status).toBe(200);
     const f = r.body.fit;
     expect(f.oneNode.tauH.value).toBeGreaterThan(1);
@@ -184,7 +184,7 @@ describe('fitting and applying', () => {
     expect(f.twoNode.supported).toBe(true);
     expect(f.recommended).toBe('two-node');
     expect(f.chart.tMs.length).toBe(f.chart.oilC.length);
-    const g = await call(oneLog.GET as never, { params: { id, logId } });
+    const g = await call(oneLog.GET, { params: { id, logId } });
     expect(g.body.log.fitted).toBe(true);
     expect(g.body.log.window.startMs).toBe(f.window.startMs);
     expect(g.body.fit.oneNode.tauH.value).toBe(f.oneNode.tauH.value);
@@ -192,7 +192,7 @@ describe('fitting and applying', () => {
 
   it('applies the two-node fit, keeping the profile before it; then the one-node fit; then goes back', async () => {
     await signInAs(DEMO.operator);
-    const two = await call(apply.POST as never, { method: 'POST', body: { logId: Number(logId), model: 'two-node', note: 'First calibration' }, params: { id } });
+    const two = await call(apply.POST, { method: 'POST', body: { logId: Number(logId), model: 'two-node', note: 'First calibration' }, params: { id } });
     expect(two.status).toBe(201);
     expect(two.body.thermal.source).toBe('fitted');
     expect(two.body.thermal.nodes.length).toBe(2);
@@ -202,31 +202,31 @@ describe('fitting and applying', () => {
     expect(two.body.revisions[0].author.name).toBe('Ilkka Brand');
     expect(two.body.revisions[0].summary.model).toBe('two-node');
 
-    const one = await call(apply.POST as never, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } });
+    const one = await call(apply.POST, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } });
     expect(one.status).toBe(201);
     expect(one.body.thermal.nodes.length).toBe(1);
     const stored = (await models.Aircraft.findByPk(Number(id)))!.thermal;
     expect(stored.nodes[0].lossWPerK).toBe(one.body.thermal.nodes[0].lossWPerK);
 
     const initial = one.body.revisions.find((r: { kind: string }) => r.kind === 'initial');
-    const back = await call(revert.POST as never, { method: 'POST', body: { revisionId: initial.id }, params: { id } });
+    const back = await call(revert.POST, { method: 'POST', body: { revisionId: initial.id }, params: { id } });
     expect(back.status).toBe(201);
     expect(back.body.thermal).toEqual(original);
     expect(back.body.revisions[0]).toMatchObject({ kind: 'revert', restoredFromId: initial.id, current: true });
     expect((await models.Aircraft.findByPk(Number(id)))!.thermal).toEqual(original);
-    const p = await call(profile.GET as never, { params: { id } });
+    const p = await call(profile.GET, { params: { id } });
     expect(p.body.revisions.length).toBe(4);
   });
 
   it('a fit logged with the cover on is applied as the uncovered loss (divided by the cover factor)', async () => {
     await signInAs(DEMO.operator);
-    const r = await call(fit.POST as never, { method: 'POST', body: { coverOn: true, twoNode: false }, params: { id, logId } });
+    const r = await call(fit.POST, { method: 'POST', body: { coverOn: true, twoNode: false }, params: { id, logId } });
     expect(r.status).toBe(200);
-    const a = await call(apply.POST as never, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } });
+    const a = await call(apply.POST, { method: 'POST', body: { logId: Number(logId), model: 'one-node' }, params: { id } });
     const cf = (original as { coverFactor: number }).coverFactor;
     expect(a.body.thermal.nodes[0].lossWPerK).toBeCloseTo(r.body.fit.oneNode.lossWPerK.value / cf, 2);
     // This fit did not try two nodes, so the two-node model cannot be applied.
-    const two = await call(apply.POST as never, { method: 'POST', body: { logId: Number(logId), model: 'two-node' }, params: { id } });
+    const two = await call(apply.POST, { method: 'POST', body: { logId: Number(logId), model: 'two-node' }, params: { id } });
     expect(two.status).toBe(409);
   });
 
@@ -234,10 +234,10 @@ describe('fitting and applying', () => {
     await signInAs(DEMO.operator);
     const other = await idOf('Q-LUMI');
     const rev = (await models.ProfileRevision.findOne({ where: { aircraftId: Number(id) } }))!;
-    const r = await call(revert.POST as never, { method: 'POST', body: { revisionId: rev.id }, params: { id: other } });
+    const r = await call(revert.POST, { method: 'POST', body: { revisionId: rev.id }, params: { id: other } });
     expect(r.status).toBe(422);
     expect(r.body.fields[0].field).toBe('revisionId');
-    const m = await call(apply.POST as never, { method: 'POST', body: { logId: 'x', model: 'three-node' }, params: { id } });
+    const m = await call(apply.POST, { method: 'POST', body: { logId: 'x', model: 'three-node' }, params: { id } });
     expect(m.status).toBe(422);
     expect(m.body.fields.map((f: { field: string }) => f.field).sort()).toEqual(['logId', 'model']);
   });
@@ -245,7 +245,7 @@ describe('fitting and applying', () => {
   it('deletes a log; the revisions applied from it stay', async () => {
     await signInAs(DEMO.manager);
     const before = await models.ProfileRevision.count({ where: { aircraftId: Number(id) } });
-    const d = await call(oneLog.DELETE as never, { method: 'DELETE', params: { id, logId } });
+    const d = await call(oneLog.DELETE, { method: 'DELETE', params: { id, logId } });
     expect(d.status).toBe(200);
     expect(await models.TempLog.count()).toBe(0);
     expect(await models.ProfileRevision.count({ where: { aircraftId: Number(id) } })).toBe(before);

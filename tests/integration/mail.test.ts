@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Op } from 'sequelize';
 import { DEMO, call, freshDatabase, signInAs } from './helpers';
-import { startSmtpUrl, stopSmtpUrl, testSmtp, type TestSmtp } from '../unit/mail/testSmtp';
+import { startSmtpUrl, stopSmtpUrl, testSmtp, type TestSmtp } from '../support/smtp';
 
 // The outbox and its delivery against a real SMTP server started here (smtp-server, 127.0.0.1, port 0),
 // reached through SMTP_URL: refusals and outages, a worker dying mid-delivery, two workers at once,

@@ -30,12 +30,12 @@ const check = (extra: Record<string, unknown> = {}) => ({ checkedAt: '2026-11-30
 describe('reading the Oil log', () => {
   it('needs a session', async () => {
     signOut();
-    expect((await call(oil.GET as never, { params: { id: await idOf('Q-KAPA') } })).status).toBe(401);
+    expect((await call(oil.GET, { params: { id: await idOf('Q-KAPA') } })).status).toBe(401);
   });
 
   it('shows the seeded season: checks newest first with corrected levels, changes, oil used per hour and the next change', async () => {
     await signInAs(DEMO.pilot);
-    const r = await call(oil.GET as never, { params: { id: await idOf('Q-ROUTA') } });
+    const r = await call(oil.GET, { params: { id: await idOf('Q-ROUTA') } });
     expect(r.status).toBe(200);
     const log = r.body;
     expect(log.checks.length).toBeGreaterThan(20);
@@ -51,7 +51,7 @@ describe('reading the Oil log', () => {
 
   it('flags an aircraft using more oil than its engine class usually does', async () => {
     await signInAs(DEMO.operator);
-    const r = await call(oil.GET as never, { params: { id: await idOf('Q-TAIMI') } });
+    const r = await call(oil.GET, { params: { id: await idOf('Q-TAIMI') } });
     expect(r.body.consumption.high).toBe(true);
     expect(r.body.consumption.recentLPerH).toBeGreaterThan(r.body.consumption.usualLPerH);
   });
@@ -59,12 +59,12 @@ describe('reading the Oil log', () => {
   it("another organization's aircraft is not found (404), for reading and writing", async () => {
     await signInAs(DEMO.otherManager);
     const id = await idOf('Q-KAPA');
-    expect((await call(oil.GET as never, { params: { id } })).status).toBe(404);
-    expect((await call(checks.POST as never, { method: 'POST', body: check(), params: { id } })).status).toBe(404);
-    expect((await call(changes.POST as never, { method: 'POST', body: { changedAt: '2026-11-30T10:00', engineHours: 1, oilGrade: 'SAE 15W-50' }, params: { id } })).status).toBe(404);
-    expect((await call(settings.PATCH as never, { method: 'PATCH', body: { oilChangeIntervalHours: 50 }, params: { id } })).status).toBe(404);
+    expect((await call(oil.GET, { params: { id } })).status).toBe(404);
+    expect((await call(checks.POST, { method: 'POST', body: check(), params: { id } })).status).toBe(404);
+    expect((await call(changes.POST, { method: 'POST', body: { changedAt: '2026-11-30T10:00', engineHours: 1, oilGrade: 'SAE 15W-50' }, params: { id } })).status).toBe(404);
+    expect((await call(settings.PATCH, { method: 'PATCH', body: { oilChangeIntervalHours: 50 }, params: { id } })).status).toBe(404);
     const c = (await models.OilCheck.findOne({ where: { aircraftId: Number(id) } }))!;
-    expect((await call(oneCheck.DELETE as never, { method: 'DELETE', params: { id: await idOf('Q-RIDGE'), checkId: String(c.id) } })).status).toBe(404);
+    expect((await call(oneCheck.DELETE, { method: 'DELETE', params: { id: await idOf('Q-RIDGE'), checkId: String(c.id) } })).status).toBe(404);
   });
 });
 
@@ -73,7 +73,7 @@ describe('recording a cold oil check', () => {
     await setUnits(DEMO.pilot, 'F', 'qt');
     await signInAs(DEMO.pilot);
     const id = await idOf('Q-KAPA');
-    const r = await call(checks.POST as never, { method: 'POST', body: check({ level: 3.2, oilTemp: 20, outsideTemp: 14 }), params: { id } });
+    const r = await call(checks.POST, { method: 'POST', body: check({ level: 3.2, oilTemp: 20, outsideTemp: 14 }), params: { id } });
     expect(r.status).toBe(201);
     const row = (await models.OilCheck.findByPk(r.body.id))!;
     expect(row.levelL).toBeCloseTo(3.2 * 0.946352946, 6);
@@ -89,7 +89,7 @@ describe('recording a cold oil check', () => {
   it('a reading taken at 90 °C is shown corrected to 15 °C about 5 % lower (Engineering ToolBox β; common practice)', async () => {
     await signInAs(DEMO.operator);
     const id = await idOf('Q-LUMI');
-    const r = await call(checks.POST as never, { method: 'POST', body: check({ level: 3.0, oilTemp: 90, outsideTemp: -2, checkedAt: '2026-11-30T13:10' }), params: { id } });
+    const r = await call(checks.POST, { method: 'POST', body: check({ level: 3.0, oilTemp: 90, outsideTemp: -2, checkedAt: '2026-11-30T13:10' }), params: { id } });
     expect(r.status).toBe(201);
     const rec = r.body.oilLog.checks.find((c: { id: number }) => c.id === r.body.id);
     expect(rec.levelL).toBe(3);
@@ -102,16 +102,16 @@ describe('recording a cold oil check', () => {
     await signInAs(DEMO.pilot);
     const id = await idOf('Q-KAPA');
     const before = await models.OilCheck.count();
-    const r = await call(checks.POST as never, { method: 'POST', body: { checkedAt: 'yesterday', level: '', oilTemp: 900, outsideTemp: 'cold', bladesTurned: 2.5 }, params: { id } });
+    const r = await call(checks.POST, { method: 'POST', body: { checkedAt: 'yesterday', level: '', oilTemp: 900, outsideTemp: 'cold', bladesTurned: 2.5 }, params: { id } });
     expect(r.status).toBe(422);
     const f = Object.fromEntries(r.body.fields.map((x: { field: string; message: string }) => [x.field, x.message]));
     expect(Object.keys(f).sort()).toEqual(['bladesTurned', 'checkedAt', 'level', 'oilTemp', 'outsideTemp']);
     expect(f.oilTemp).toBe('The oil temperature must be between −76 °F and 302 °F.');
     expect(f.level).toBe('Enter the dipstick level.');
-    const future = await call(checks.POST as never, { method: 'POST', body: check({ checkedAt: '2099-01-01T07:00' }), params: { id } });
+    const future = await call(checks.POST, { method: 'POST', body: check({ checkedAt: '2099-01-01T07:00' }), params: { id } });
     expect(future.status).toBe(422);
     expect(future.body.fields[0].field).toBe('checkedAt');
-    const junk = await call(checks.POST as never, { method: 'POST', rawBody: '{"level": 3,', params: { id } });
+    const junk = await call(checks.POST, { method: 'POST', rawBody: '{"level": 3,', params: { id } });
     expect(junk.status).toBe(422);
     expect(junk.text).not.toMatch(/at .*\.ts|SELECT|Sequelize/);
     expect(await models.OilCheck.count()).toBe(before);
@@ -121,14 +121,14 @@ describe('recording a cold oil check', () => {
   it('removing an entry: its author may, others need aircraft:edit (403), operators may', async () => {
     const id = await idOf('Q-KAPA');
     await signInAs(DEMO.pilot);
-    const mine = await call(checks.POST as never, { method: 'POST', body: check({ checkedAt: '2026-11-29T07:40' }), params: { id } });
-    expect((await call(oneCheck.DELETE as never, { method: 'DELETE', params: { id, checkId: String(mine.body.id) } })).status).toBe(200);
+    const mine = await call(checks.POST, { method: 'POST', body: check({ checkedAt: '2026-11-29T07:40' }), params: { id } });
+    expect((await call(oneCheck.DELETE, { method: 'DELETE', params: { id, checkId: String(mine.body.id) } })).status).toBe(200);
     const someoneElse = (await models.OilCheck.findOne({ where: { aircraftId: Number(id), userId: (await models.User.findOne({ where: { email: 'pilot2@frostvale.test' } }))!.id } }))!;
-    const refused = await call(oneCheck.DELETE as never, { method: 'DELETE', params: { id, checkId: String(someoneElse.id) } });
+    const refused = await call(oneCheck.DELETE, { method: 'DELETE', params: { id, checkId: String(someoneElse.id) } });
     expect(refused.status).toBe(403);
     await signInAs(DEMO.operator);
-    expect((await call(oneCheck.DELETE as never, { method: 'DELETE', params: { id, checkId: String(someoneElse.id) } })).status).toBe(200);
-    expect((await call(oneCheck.DELETE as never, { method: 'DELETE', params: { id, checkId: String(someoneElse.id) } })).status).toBe(404);
+    expect((await call(oneCheck.DELETE, { method: 'DELETE', params: { id, checkId: String(someoneElse.id) } })).status).toBe(200);
+    expect((await call(oneCheck.DELETE, { method: 'DELETE', params: { id, checkId: String(someoneElse.id) } })).status).toBe(404);
   });
 });
 
@@ -136,34 +136,34 @@ describe('oil changes and the interval', () => {
   it('an oil change resets the oil age and the next change', async () => {
     await signInAs(DEMO.operator);
     const id = await idOf('Q-TAIMI');
-    const before = await call(oil.GET as never, { params: { id } });
+    const before = await call(oil.GET, { params: { id } });
     const hours = before.body.currentHours;
-    const r = await call(changes.POST as never, { method: 'POST', body: { changedAt: '2026-12-01T09:00', engineHours: hours, oilGrade: 'SAE 15W-50', quantity: 7.5, notes: 'Filter cut open: clean.' }, params: { id } });
+    const r = await call(changes.POST, { method: 'POST', body: { changedAt: '2026-12-01T09:00', engineHours: hours, oilGrade: 'SAE 15W-50', quantity: 7.5, notes: 'Filter cut open: clean.' }, params: { id } });
     expect(r.status).toBe(201);
     expect(r.body.oilLog.changes[0]).toMatchObject({ engineHours: hours, oilGrade: 'SAE 15W-50', quantityL: 7.5 });
     expect(r.body.oilLog.due.dueAtHours).toBeCloseTo(hours + 50, 6);
     expect(r.body.oilLog.due.status).toBe('ok');
-    const bad = await call(changes.POST as never, { method: 'POST', body: { changedAt: '2026-12-01T09:00', engineHours: -1, oilGrade: '' }, params: { id } });
+    const bad = await call(changes.POST, { method: 'POST', body: { changedAt: '2026-12-01T09:00', engineHours: -1, oilGrade: '' }, params: { id } });
     expect(bad.status).toBe(422);
     expect(bad.body.fields.map((f: { field: string }) => f.field).sort()).toEqual(['engineHours', 'oilGrade']);
-    const del = await call(oneChange.DELETE as never, { method: 'DELETE', params: { id, changeId: String(r.body.id) } });
+    const del = await call(oneChange.DELETE, { method: 'DELETE', params: { id, changeId: String(r.body.id) } });
     expect(del.status).toBe(200);
   });
 
   it('the interval is set per aircraft by operators and managers (pilots 403), and may be cleared', async () => {
     const id = await idOf('Q-HALLA');
     await signInAs(DEMO.pilot);
-    expect((await call(settings.PATCH as never, { method: 'PATCH', body: { oilChangeIntervalHours: 25 }, params: { id } })).status).toBe(403);
+    expect((await call(settings.PATCH, { method: 'PATCH', body: { oilChangeIntervalHours: 25 }, params: { id } })).status).toBe(403);
     await signInAs(DEMO.operator);
-    const ok = await call(settings.PATCH as never, { method: 'PATCH', body: { oilChangeIntervalHours: 25, oilChangeIntervalMonths: null }, params: { id } });
+    const ok = await call(settings.PATCH, { method: 'PATCH', body: { oilChangeIntervalHours: 25, oilChangeIntervalMonths: null }, params: { id } });
     expect(ok.status).toBe(200);
     expect(ok.body.settings).toEqual({ oilChangeIntervalHours: 25, oilChangeIntervalMonths: null });
-    const log = await call(oil.GET as never, { params: { id } });
+    const log = await call(oil.GET, { params: { id } });
     expect(log.body.due.by).toBe('hours');
-    const bad = await call(settings.PATCH as never, { method: 'PATCH', body: { oilChangeIntervalMonths: 1.5 }, params: { id } });
+    const bad = await call(settings.PATCH, { method: 'PATCH', body: { oilChangeIntervalMonths: 1.5 }, params: { id } });
     expect(bad.status).toBe(422);
     expect(bad.body.fields[0].field).toBe('oilChangeIntervalMonths');
-    const none = await call(settings.PATCH as never, { method: 'PATCH', body: {}, params: { id } });
+    const none = await call(settings.PATCH, { method: 'PATCH', body: {}, params: { id } });
     expect(none.status).toBe(422);
   });
 });

@@ -23,12 +23,12 @@ beforeAll(async () => {
 describe('POST /api/v1/simulations', () => {
   it('answers 401 without a session', async () => {
     signOut();
-    expect((await call(route.POST as never, { method: 'POST', body: valid })).status).toBe(401);
+    expect((await call(route.POST, { method: 'POST', body: valid })).status).toBe(401);
   });
 
   it('answers the series for a signed-in pilot, both ends included', async () => {
     await signInAs(DEMO.pilot);
-    const r = await call(route.POST as never, { method: 'POST', body: valid });
+    const r = await call(route.POST, { method: 'POST', body: valid });
     expect(r.status).toBe(200);
     expect(r.body.series).toHaveLength(16);
     expect(r.body.series[0].at).toBe('2026-12-01T15:00:00.000Z');
@@ -52,7 +52,7 @@ describe('POST /api/v1/simulations', () => {
   for (const [name, body, field] of bad) {
     it(`bad input (${name}) is 422 naming ${field}`, async () => {
       await signInAs(DEMO.pilot);
-      const r = await call(route.POST as never, { method: 'POST', body });
+      const r = await call(route.POST, { method: 'POST', body });
       expect(r.status).toBe(422);
       expect(r.body.fields.map((f: { field: string }) => f.field)).toContain(field);
       expect(r.text).not.toMatch(/\n\s+at /);

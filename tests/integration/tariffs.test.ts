@@ -25,12 +25,12 @@ const flat = (price: number) => ({
 describe('airfield tariffs', () => {
   it('needs a session', async () => {
     signOut();
-    expect((await call(route.GET as never, { params: { id: await airfieldId('Kettle Lake') } })).status).toBe(401);
+    expect((await call(route.GET, { params: { id: await airfieldId('Kettle Lake') } })).status).toBe(401);
   });
 
   it('the demo airfields carry a stored three-period tariff with the evening peak 2–3× the night price (docs/sources.md, from memory)', async () => {
     await signInAs(DEMO.operator);
-    const r = await call(route.GET as never, { params: { id: await airfieldId('Kettle Lake') } });
+    const r = await call(route.GET, { params: { id: await airfieldId('Kettle Lake') } });
     expect(r.status).toBe(200);
     const t = r.body.tariff;
     expect(t.source).toBe('stored');
@@ -47,7 +47,7 @@ describe('airfield tariffs', () => {
     const org = (await models.Organization.findOne({ where: { name: 'Frostvale Flying Club' } }))!;
     const af = await models.Airfield.create({ organizationId: org.id, name: 'Test Meadow', ident: 'XTMD', latitude: 61, longitude: 24, elevationM: 100, timeZone: 'Europe/Helsinki' });
     await signInAs(DEMO.pilot);
-    const r = await call(route.GET as never, { params: { id: String(af.id) } });
+    const r = await call(route.GET, { params: { id: String(af.id) } });
     expect(r.status).toBe(200);
     expect(r.body.tariff.source).toBe('default');
     expect(r.body.tariff.periods).toEqual([{ name: 'Flat (default)', pricePerKWh: 0.2 }]);
@@ -56,14 +56,14 @@ describe('airfield tariffs', () => {
 
   it('only roles with airfields:edit store a tariff (an operator is 403)', async () => {
     await signInAs(DEMO.operator);
-    const r = await call(route.PUT as never, { method: 'PUT', params: { id: await airfieldId('Birchmoor') }, body: flat(0.5) });
+    const r = await call(route.PUT, { method: 'PUT', params: { id: await airfieldId('Birchmoor') }, body: flat(0.5) });
     expect(r.status).toBe(403);
   });
 
   it('a manager replaces the tariff; getTariff and tariffPeriodsBetween then use it', async () => {
     await signInAs(DEMO.manager);
     const id = await airfieldId('Birchmoor');
-    const r = await call(route.PUT as never, { method: 'PUT', params: { id }, body: flat(1.25) });
+    const r = await call(route.PUT, { method: 'PUT', params: { id }, body: flat(1.25) });
     expect(r.status).toBe(200);
     expect(r.body.tariff).toMatchObject({ source: 'stored', currency: 'SEK', periods: [{ name: 'Flat', pricePerKWh: 1.25 }] });
     const org = (await models.Organization.findOne({ where: { name: 'Frostvale Flying Club' } }))!;
@@ -77,8 +77,8 @@ describe('airfield tariffs', () => {
   it('bad input is 422 naming the field, and the stored tariff stays', async () => {
     await signInAs(DEMO.manager);
     const id = await airfieldId('Kettle Lake');
-    const before = (await call(route.GET as never, { params: { id } })).body.tariff;
-    const bad = await call(route.PUT as never, {
+    const before = (await call(route.GET, { params: { id } })).body.tariff;
+    const bad = await call(route.PUT, {
       method: 'PUT',
       params: { id },
       body: { ...flat(-1), currency: '€', weekendSchedule: [[0]] },
@@ -86,13 +86,13 @@ describe('airfield tariffs', () => {
     expect(bad.status).toBe(422);
     const fields = bad.body.fields.map((f: { field: string }) => f.field);
     expect(fields).toEqual(expect.arrayContaining(['currency', 'periods.0.pricePerKWh', 'weekendSchedule']));
-    expect((await call(route.GET as never, { params: { id } })).body.tariff).toEqual(before);
+    expect((await call(route.GET, { params: { id } })).body.tariff).toEqual(before);
   });
 
   it("another organization's airfield is 404", async () => {
     await signInAs(DEMO.manager);
     const id = await airfieldId('Ridgeway Field');
-    expect((await call(route.GET as never, { params: { id } })).status).toBe(404);
-    expect((await call(route.PUT as never, { method: 'PUT', params: { id }, body: flat(0.3) })).status).toBe(404);
+    expect((await call(route.GET, { params: { id } })).status).toBe(404);
+    expect((await call(route.PUT, { method: 'PUT', params: { id }, body: flat(0.3) })).status).toBe(404);
   });
 });

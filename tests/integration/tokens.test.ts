@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import bcrypt from 'bcryptjs';
 import { DEMO, call, freshDatabase, signInAs, signOut } from './helpers';
-import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../unit/mail/testSmtp';
+import { startSmtpUrl, stopSmtpUrl, type TestSmtp } from '../support/smtp';
 
 // Invitations and password resets by e-mail with signed, expiring, single-use tokens, delivered to a
 // real SMTP server started here.
@@ -27,7 +27,7 @@ describe('invitations', () => {
     const users = await import('@/app/api/users/route');
     const accept = await import('@/app/api/tokens/invite/route');
     await signInAs(DEMO.manager);
-    const r = await call(users.POST as never, { method: 'POST', body: { name: 'Nea Frost', email: 'nea.frost@frostvale.test', role: 'pilot' } });
+    const r = await call(users.POST, { method: 'POST', body: { name: 'Nea Frost', email: 'nea.frost@frostvale.test', role: 'pilot' } });
     expect(r.status).toBe(201);
     expect(r.body.invited).toBe(true);
     expect(r.body.user.mustChangePassword).toBe(true);
@@ -42,12 +42,12 @@ describe('invitations', () => {
     expect(await models.Token.count({ where: { tokenHash: token } })).toBe(0);
 
     signOut();
-    const bad = await call(accept.POST as never, { method: 'POST', body: { token, password: 'long-enough-1', confirm: 'different-one' } });
+    const bad = await call(accept.POST, { method: 'POST', body: { token, password: 'long-enough-1', confirm: 'different-one' } });
     expect(bad.status).toBe(422);
     expect(bad.body.fields.map((f: any) => f.field)).toContain('confirm');
-    const short = await call(accept.POST as never, { method: 'POST', body: { token, password: 'short' } });
+    const short = await call(accept.POST, { method: 'POST', body: { token, password: 'short' } });
     expect(short.body.fields.map((f: any) => f.field)).toContain('password');
-    const ok = await call(accept.POST as never, { method: 'POST', body: { token, name: 'Nea Frost-Lind', password: 'my-own-password-1', confirm: 'my-own-password-1' } });
+    const ok = await call(accept.POST, { method: 'POST', body: { token, name: 'Nea Frost-Lind', password: 'my-own-password-1', confirm: 'my-own-password-1' } });
     expect(ok.status).toBe(200);
     expect(ok.body.email).toBe('nea.frost@frostvale.test');
     const u = (await models.User.findOne({ where: { email: 'nea.frost@frostvale.test' } }))!;
@@ -55,7 +55,7 @@ describe('invitations', () => {
     expect(u.mustChangePassword).toBe(false);
     expect(u.name).toBe('Nea Frost-Lind');
 
-    const again = await call(accept.POST as never, { method: 'POST', body: { token, password: 'another-password-2' } });
+    const again = await call(accept.POST, { method: 'POST', body: { token, password: 'another-password-2' } });
     expect(again.status).toBe(422);
     expect(again.body.fields[0]).toEqual({ field: 'token', message: expect.stringContaining('already used') });
     expect(await bcrypt.compare('my-own-password-1', (await u.reload()).passwordHash)).toBe(true);
@@ -66,35 +66,35 @@ describe('invitations', () => {
     const resend = await import('@/app/api/tokens/invitations/route');
     const accept = await import('@/app/api/tokens/invite/route');
     await signInAs(DEMO.manager);
-    await call(users.POST as never, { method: 'POST', body: { name: 'Oli Haze', email: 'oli.haze@frostvale.test', role: 'operator' } });
+    await call(users.POST, { method: 'POST', body: { name: 'Oli Haze', email: 'oli.haze@frostvale.test', role: 'operator' } });
     const created = { body: { user: (await models.User.findOne({ where: { email: 'oli.haze@frostvale.test' } }))! } };
     await deliver();
     const first = tokenIn(lastTo('oli.haze@frostvale.test').text, 'invite');
-    expect((await call(resend.POST as never, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(201);
+    expect((await call(resend.POST, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(201);
     await deliver();
     const second = tokenIn(lastTo('oli.haze@frostvale.test').text, 'invite');
     expect(second).not.toBe(first);
     signOut();
-    const old = await call(accept.POST as never, { method: 'POST', body: { token: first, password: 'oli-password-1' } });
+    const old = await call(accept.POST, { method: 'POST', body: { token: first, password: 'oli-password-1' } });
     expect(old.status).toBe(422);
     expect(old.body.fields[0].message).toContain('expired');
-    expect((await call(accept.POST as never, { method: 'POST', body: { token: second, password: 'oli-password-1' } })).status).toBe(200);
-    expect((await call(resend.POST as never, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(401);
+    expect((await call(accept.POST, { method: 'POST', body: { token: second, password: 'oli-password-1' } })).status).toBe(200);
+    expect((await call(resend.POST, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(401);
     await signInAs(DEMO.pilot);
-    expect((await call(resend.POST as never, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(403);
+    expect((await call(resend.POST, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(403);
     await signInAs(DEMO.manager);
-    expect((await call(resend.POST as never, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(409);
+    expect((await call(resend.POST, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(409);
     await signInAs(DEMO.otherManager);
-    expect((await call(resend.POST as never, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(404);
+    expect((await call(resend.POST, { method: 'POST', body: { userId: created.body.user.id } })).status).toBe(404);
   });
 
   it('refuses a damaged token naming the field', async () => {
     const accept = await import('@/app/api/tokens/invite/route');
     signOut();
-    const r = await call(accept.POST as never, { method: 'POST', body: { token: 'abc', password: 'long-enough-1' } });
+    const r = await call(accept.POST, { method: 'POST', body: { token: 'abc', password: 'long-enough-1' } });
     expect(r.status).toBe(422);
     expect(r.body.fields[0].field).toBe('token');
-    const unknown = await call(accept.POST as never, { method: 'POST', body: { token: 'A'.repeat(43), password: 'long-enough-1' } });
+    const unknown = await call(accept.POST, { method: 'POST', body: { token: 'A'.repeat(43), password: 'long-enough-1' } });
     expect(unknown.body.fields[0]).toEqual({ field: 'token', message: expect.stringContaining('not valid') });
   });
 });
@@ -104,17 +104,17 @@ describe('password reset', () => {
     const req = await import('@/app/api/tokens/reset-request/route');
     signOut();
     const before = await models.OutboxMessage.count({ where: { kind: 'reset' } });
-    const known = await call(req.POST as never, { method: 'POST', body: { email: DEMO.operator } });
-    const unknown = await call(req.POST as never, { method: 'POST', body: { email: 'nobody@nowhere.test' } });
+    const known = await call(req.POST, { method: 'POST', body: { email: DEMO.operator } });
+    const unknown = await call(req.POST, { method: 'POST', body: { email: 'nobody@nowhere.test' } });
     expect(known.status).toBe(202);
     expect(unknown.status).toBe(known.status);
     expect(unknown.body).toEqual(known.body);
-    await call(req.POST as never, { method: 'POST', body: { email: DEMO.operator } });
+    await call(req.POST, { method: 'POST', body: { email: DEMO.operator } });
     // The work behind the answer is queued (the answer does not wait for it): wait for it here.
     const { settleQueuedResets } = await import('@/lib/data/tokens');
     await settleQueuedResets();
     expect(await models.OutboxMessage.count({ where: { kind: 'reset' } })).toBe(before + 1);
-    const badEmail = await call(req.POST as never, { method: 'POST', body: { email: 'not an address' } });
+    const badEmail = await call(req.POST, { method: 'POST', body: { email: 'not an address' } });
     expect(badEmail.status).toBe(422);
     expect(badEmail.body.fields[0].field).toBe('email');
   });
@@ -137,12 +137,12 @@ describe('password reset', () => {
     const fresh = tokenIn(lastTo(DEMO.pilot).text, 'reset');
     expect(fresh).not.toBe(expired);
     signOut();
-    const ok = await call(reset.POST as never, { method: 'POST', body: { token: fresh, password: 'new-password-77', confirm: 'new-password-77' } });
+    const ok = await call(reset.POST, { method: 'POST', body: { token: fresh, password: 'new-password-77', confirm: 'new-password-77' } });
     expect(ok.status).toBe(200);
     const u = (await models.User.findOne({ where: { email: DEMO.pilot } }))!;
     expect(await bcrypt.compare('new-password-77', u.passwordHash)).toBe(true);
     expect(await bcrypt.compare(DEMO.password, u.passwordHash)).toBe(false);
-    const reused = await call(reset.POST as never, { method: 'POST', body: { token: fresh, password: 'yet-another-88' } });
+    const reused = await call(reset.POST, { method: 'POST', body: { token: fresh, password: 'yet-another-88' } });
     expect(reused.status).toBe(422);
     expect(reused.body.fields[0].message).toContain('already used');
   });

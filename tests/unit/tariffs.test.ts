@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { tariffPeriodsBetween, DEFAULT_TARIFF } from '@/lib/data/tariffs';
-import { tariffSchema, uniformSchedule, type TariffShape } from '@/lib/validation/tariffs';
+import { tariffPeriodsBetween } from '@/lib/tariffs/expand';
+import { DEFAULT_TARIFF, tariffSchema, uniformSchedule, type TariffShape } from '@/lib/validation/tariffs';
 
 const HOUR = 3_600_000;
 const utc = (s: string) => Date.parse(s);

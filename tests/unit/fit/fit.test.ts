@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '@/lib/thermal';
 import { oneNodeCurve } from '@/lib/fit/oneNode';
-import { fitCooldown, fitOneNode, fitTwoNode, twoNodeTimeConstants, FitRefused, type FitData } from '@/lib/fit/cooldown';
+import { fitCooldown, fitOneNode, twoNodeTimeConstants, FitRefused, type FitData } from '@/lib/fit/cooldown';
 import { syntheticOneNode, syntheticTwoNode } from '@/lib/fit/synthetic';
 import { suggestWindow } from '@/lib/fit/window';
 

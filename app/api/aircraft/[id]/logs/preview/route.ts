@@ -1,8 +1,7 @@
-import { MAX_LOG_BYTES } from '@/lib/fit/csv';
 import { apiRoute, idParam } from '@/lib/api/route';
 import { previewLog } from '@/lib/data/logs';
 import { logUploadQuery } from '@/lib/validation/logs';
-import { LOG_TOO_LARGE, uploadStream } from '../body';
+import { uploadStream } from '../body';
 
 export const dynamic = 'force-dynamic';
 
