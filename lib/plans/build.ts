@@ -6,6 +6,7 @@ import { ENGINE_CLASSES, engineThresholdFor, type EngineClassId } from '@/lib/th
 import { outsideAt, type SoakModel } from '@/lib/thermal';
 import type { PlanMode, PlannedHeater, PlanRequest, TariffPeriod } from '@/lib/planner/types';
 import { oneControl } from '@/lib/planner/joint';
+import { COMBUSTION_HEATER_KINDS } from '@/lib/devices/commands';
 
 const HOUR = 3_600_000;
 /** How long before departure the model starts at the latest (a longer-parked engine is cold-soaked). */
@@ -47,7 +48,9 @@ export function primaryHeater<H extends { powerW: number }>(heaters: readonly H[
 }
 
 /** A relay can follow the least-cost slots; a plain timer, or a heater switched by hand, goes on once and stays on to departure. */
-export function modeFor(control: HeaterControl): PlanMode {
+export function modeFor(control: HeaterControl, kind?: string): PlanMode {
+  // A combustion heater is attended only: never a relay's slot schedule, one attended block at most.
+  if (kind !== undefined && COMBUSTION_HEATER_KINDS.includes(kind)) return 'single-start';
   return control === 'relay' ? 'least-cost' : 'single-start';
 }
 
@@ -124,7 +127,7 @@ export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelF
     tariff: r.tariff,
     slotMinutes: heater.slotMinutes || 5,
     earliestSwitchOnMs: Math.max(model.startMs, Math.min(nowMs, r.departure.departAtMs)),
-    mode: modeFor(heater.control),
+    mode: modeFor(heater.control, heater.kind),
     nowMs,
     forecastIssuedAtMs: r.forecastIssuedAtMs ?? nowMs,
     holdMinutes: r.departure.holdMinutes ?? 0,
