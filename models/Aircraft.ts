@@ -25,6 +25,12 @@ export class Aircraft extends Model<InferAttributes<Aircraft>, InferCreationAttr
   declare coverOnByDefault: CreationOptional<boolean>;
   declare lastShutdownAt: CreationOptional<Date | null>;
   declare lastShutdownOilC: CreationOptional<number | null>;
+  /** Engine-mass threshold, °C; null: the engine class's (estimate). */
+  declare engineReadyC: CreationOptional<number | null>;
+  /** The maker's rule from the aircraft's manual; null: the engine class's (estimate). */
+  declare preheatBelowC: CreationOptional<number | null>;
+  declare preheatSoakHours: CreationOptional<number | null>;
+  declare minStartOilC: CreationOptional<number | null>;
   declare archivedAt: CreationOptional<Date | null>;
   /** Oil change due after this many engine hours since the last change (null: not set). */
   declare oilChangeIntervalHours: CreationOptional<number | null>;
@@ -48,6 +54,10 @@ export function initAircraft(sequelize: Sequelize) {
       coverOnByDefault: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
       lastShutdownAt: { type: DataTypes.DATE, allowNull: true },
       lastShutdownOilC: { type: DataTypes.FLOAT, allowNull: true },
+      engineReadyC: { type: DataTypes.FLOAT, allowNull: true },
+      preheatBelowC: { type: DataTypes.FLOAT, allowNull: true },
+      preheatSoakHours: { type: DataTypes.FLOAT, allowNull: true },
+      minStartOilC: { type: DataTypes.FLOAT, allowNull: true },
       archivedAt: { type: DataTypes.DATE, allowNull: true },
       oilChangeIntervalHours: { type: DataTypes.FLOAT, allowNull: true },
       oilChangeIntervalMonths: { type: DataTypes.INTEGER, allowNull: true },

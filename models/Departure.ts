@@ -13,6 +13,11 @@ export class Departure extends Model<InferAttributes<Departure>, InferCreationAt
   declare departAt: Date;
   declare readyC: number;
   declare floorC: CreationOptional<number | null>;
+  /** Start window: ready from departAt through this many minutes; the heater stays on through it. */
+  declare holdMinutes: CreationOptional<number>;
+  /** The ready temperature was lowered to the aircraft's figure: by whom and when (null: never). */
+  declare readyLoweredById: CreationOptional<number | null>;
+  declare readyLoweredAt: CreationOptional<Date | null>;
   declare notes: CreationOptional<string>;
   declare cancelledAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -30,6 +35,9 @@ export function initDeparture(sequelize: Sequelize) {
       departAt: { type: DataTypes.DATE, allowNull: false },
       readyC: { type: DataTypes.FLOAT, allowNull: false },
       floorC: { type: DataTypes.FLOAT, allowNull: true },
+      holdMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
+      readyLoweredById: { type: DataTypes.INTEGER, allowNull: true },
+      readyLoweredAt: { type: DataTypes.DATE, allowNull: true },
       notes: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },
       cancelledAt: { type: DataTypes.DATE, allowNull: true },
       createdAt: DataTypes.DATE,

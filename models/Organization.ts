@@ -7,6 +7,8 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare coldNightThresholdC: CreationOptional<number>;
   /** Local time (HH:MM, each airfield's own zone) at which the cold-night notice goes out. */
   declare coldNightNoticeAt: CreationOptional<string>;
+  /** The start window new departures get, minutes (the heater stays on this long past departure). */
+  declare holdMinutes: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -18,6 +20,7 @@ export function initOrganization(sequelize: Sequelize) {
       name: { type: DataTypes.STRING(120), allowNull: false },
       coldNightThresholdC: { type: DataTypes.FLOAT, allowNull: false, defaultValue: -5 },
       coldNightNoticeAt: { type: DataTypes.STRING(5), allowNull: false, defaultValue: '18:00' },
+      holdMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

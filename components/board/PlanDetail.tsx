@@ -32,8 +32,19 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
   const zone = p.airfield?.timeZone ?? 'UTC';
   return (
     <div className="space-y-4">
+      {p.readyLowered ? (
+        <Notice tone="caution" title="Ready temperature lowered">
+          Lowered to the aircraft’s figure ({formatTemp(p.readyC, units, 0)}) by {p.readyLowered.by} on {formatDayTime(Date.parse(p.readyLowered.at), zone)}. Follow the engine manufacturer’s cold-weather instructions; they override
+          Thawline’s estimates.
+        </Notice>
+      ) : null}
+      {(p.warnings ?? []).map((w) => (
+        <Notice key={w.code} tone="caution" title="Heater warning">
+          {w.text} Suggestion: {w.suggestion}
+        </Notice>
+      ))}
       {data.series.length ? (
-        <SoakChart series={data.series} readyC={p.readyC} floorC={p.floorC ?? undefined} heaterBands={p.heaterOn} timeZone={zone} units={units} />
+        <SoakChart series={data.series} readyC={p.readyC} floorC={p.floorC ?? undefined} heaterBands={p.heaterOn} departAt={p.departAt} holdUntil={p.hold?.until} timeZone={zone} units={units} />
       ) : null}
       <div className="grid gap-3 text-sm sm:grid-cols-3">
         <div>
@@ -51,12 +62,23 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
           ) : (
             <p className="mt-1 text-slate-600 dark:text-slate-400">{p.heater ? 'No heat needed.' : 'No heater fitted.'}</p>
           )}
+          {p.hold?.heaterOn ? (
+            <p className="mt-1 text-xs font-semibold text-ember-800 dark:text-ember-200">
+              Start window to {formatTime(Date.parse(p.hold.until), zone)} ({p.holdMinutes} min): leave on until just before start; unplug before start.
+            </p>
+          ) : null}
           {p.mode ? <p className="mt-1 text-xs text-slate-500">{p.mode === 'single-start' ? 'One block to departure (timer or by hand).' : 'Least-cost slots (switched relay).'}</p> : null}
         </div>
         <div>
           <p className="font-semibold">Prediction</p>
           <p className="mt-1">Oil at departure {formatTemp(p.oilAtDepartureC, units)} · ready {formatTemp(p.readyC, units, 0)}</p>
           <p>Chance of being ready {pct(p.probabilityReady)}</p>
+          {p.hold ? (
+            <p>
+              Lowest in the start window: oil {formatTemp(p.hold.minOilC, units)}
+              {p.hold.minEngineC !== null ? <>, engine {formatTemp(p.hold.minEngineC, units)}</> : null}
+            </p>
+          ) : null}
           {p.floor ? <p>Lowest oil after switch-on {formatTemp(p.floor.minOilC, units)} {p.floor.met ? '' : '(below the floor)'}</p> : null}
           <p className="text-xs text-slate-500">{p.energyKWh.toFixed(2)} kWh · {money(p.cost, p.currency)}</p>
         </div>

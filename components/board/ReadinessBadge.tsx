@@ -7,7 +7,7 @@ const TONE = {
   short: 'bg-red-50 text-red-800 ring-red-600/40 dark:bg-red-950 dark:text-red-200 dark:ring-red-400/40',
   unplanned: 'bg-violet-50 text-violet-800 ring-violet-600/30 dark:bg-violet-950 dark:text-violet-200 dark:ring-violet-400/30',
 } as const;
-const READINESS_TONE: Record<Readiness, keyof typeof TONE> = { ready: 'ready', warming: 'plan', short: 'short', unplanned: 'unplanned' };
+const READINESS_TONE: Record<Readiness, keyof typeof TONE> = { 'no-heat': 'ready', ready: 'ready', warming: 'plan', short: 'short', unplanned: 'unplanned' };
 
 function Chip({ tone, glyph, label, hint, large }: { tone: keyof typeof TONE; glyph: string; label: string; hint: string; large: boolean }) {
   return (

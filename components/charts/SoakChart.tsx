@@ -21,6 +21,9 @@ export interface SoakChartProps {
   readyC?: number;
   floorC?: number;
   heaterBands?: { from: string; to: string }[];
+  /** The departure (a vertical line) and the end of its start window (the window is bracketed). */
+  departAt?: string;
+  holdUntil?: string;
   timeZone: string;
   units: TempUnit;
   /** Height in CSS pixels (default 300; the width is the container's). */
@@ -68,7 +71,7 @@ function useWidth(): [RefObject<HTMLElement | null>, number] {
 }
 
 
-export function SoakChart({ series, readyC, floorC, heaterBands = [], timeZone, units, height = 300 }: SoakChartProps) {
+export function SoakChart({ series, readyC, floorC, heaterBands = [], departAt, holdUntil, timeZone, units, height = 300 }: SoakChartProps) {
   const id = useId();
   const [wrap, W] = useWidth();
   const geo = useMemo(() => {
@@ -138,7 +141,13 @@ export function SoakChart({ series, readyC, floorC, heaterBands = [], timeZone, 
     `lowest ${formatTemp(series[geo.iMin].oilC, units)} at ${formatDayTime(geo.t[geo.iMin], timeZone)}, ${formatTemp(last.oilC, units)} at the end` +
     (readyC !== undefined ? `; ready temperature ${formatTemp(readyC, units)}` : '') +
     (geo.bands.length ? `; heater on ${geo.bands.map((b) => `${formatTime(b.a, timeZone)}–${formatTime(b.z, timeZone)}`).join(', ')}` : '') +
+    (departAt ? `; departure ${formatTime(Date.parse(departAt), timeZone)}` : '') +
+    (departAt && holdUntil && Date.parse(holdUntil) > Date.parse(departAt) ? `; start window to ${formatTime(Date.parse(holdUntil), timeZone)}, heater on until just before start` : '') +
     '.';
+  const depMs = departAt ? Date.parse(departAt) : NaN;
+  const holdMs = holdUntil ? Date.parse(holdUntil) : NaN;
+  const showDep = Number.isFinite(depMs) && depMs >= geo.t0 && depMs <= geo.t1;
+  const showHold = showDep && Number.isFinite(holdMs) && holdMs > depMs;
   const bottom = PAD.top + geo.plotH;
   const hLine = (c: number, className: string, dash: string, label: string) => (
     <g>
@@ -187,6 +196,18 @@ export function SoakChart({ series, readyC, floorC, heaterBands = [], timeZone, 
         {geo.lines.map((l) => (
           <path key={l.key} d={l.d} fill="none" className={l.className} strokeWidth={l.width} strokeDasharray={l.dash} strokeLinejoin="round" strokeLinecap="round" />
         ))}
+        {showHold ? (
+          <g data-testid="start-window">
+            <rect x={geo.x(depMs)} y={PAD.top} width={geo.x(Math.min(holdMs, geo.t1)) - geo.x(depMs)} height={10} className="fill-ember-700/70" />
+            <text x={geo.x(depMs) + 3} y={PAD.top + 8} className="fill-white text-[9px] font-semibold">Start window</text>
+          </g>
+        ) : null}
+        {showDep ? (
+          <g>
+            <line x1={geo.x(depMs)} x2={geo.x(depMs)} y1={PAD.top} y2={bottom} className="stroke-slate-800 dark:stroke-slate-100" strokeWidth={1.5} />
+            <text x={geo.x(depMs) - 3} y={bottom - 8} textAnchor="end" className="fill-slate-800 text-[11px] font-medium dark:fill-slate-100">Departure</text>
+          </g>
+        ) : null}
         <rect x={PAD.left} y={PAD.top} width={geo.plotW} height={geo.plotH} fill="none" className="stroke-slate-300 dark:stroke-slate-700" />
       </svg>
       <figcaption>
@@ -211,6 +232,12 @@ export function SoakChart({ series, readyC, floorC, heaterBands = [], timeZone, 
             <li className="flex items-center gap-1.5">
               <span className="inline-block h-3 w-4 rounded-sm bg-ember-500/30 ring-1 ring-ember-500" aria-hidden="true" />
               Heater on
+            </li>
+          ) : null}
+          {showHold ? (
+            <li className="flex items-center gap-1.5">
+              <span className="inline-block h-2 w-4 rounded-sm bg-ember-700/70" aria-hidden="true" />
+              Start window: heater on until just before start; unplug before start
             </li>
           ) : null}
         </ul>

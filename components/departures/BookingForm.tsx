@@ -36,6 +36,7 @@ const LABEL: Record<string, string> = {
   departAt: 'Date and time',
   readyC: 'Ready temperature',
   floorC: 'Overnight floor',
+  holdMinutes: 'Start window',
   notes: 'Notes',
 };
 
@@ -68,6 +69,7 @@ export function BookingForm({
     time: '08:00',
     readyC: '',
     floorC: '',
+    holdMinutes: '',
     notes: '',
   });
   const [fields, setFields] = useState<Record<string, string>>({});
@@ -100,6 +102,7 @@ export function BookingForm({
       departAt: form.date && form.time ? `${form.date}T${form.time}` : '',
       readyC: toC(form.readyC, tempUnit),
       floorC: toC(form.floorC, tempUnit) ?? null,
+      ...(form.holdMinutes.trim() === '' ? {} : { holdMinutes: form.holdMinutes.trim() }),
       notes: form.notes,
     };
     const r = await sendJson<{ departure: DepartureRecord }>('/api/departures', 'POST', body);
@@ -206,6 +209,17 @@ export function BookingForm({
             onChange={set('floorC')}
             error={fields.floorC}
             hint="Keep the oil at or above this all night."
+          />
+          <TextField
+            id="dep-holdMinutes"
+            name="holdMinutes"
+            label="Start window (minutes, 0–120)"
+            inputMode="numeric"
+            placeholder="30"
+            value={form.holdMinutes}
+            onChange={set('holdMinutes')}
+            error={fields.holdMinutes}
+            hint="Ready from the departure time through this window (walk-round, oil check). The heater stays on until just before start; unplug before start. Empty: the organization's 30."
           />
         </div>
 

@@ -20,7 +20,7 @@ function toC(s: string, unit: TempUnit): number | string | null {
 }
 const shown = (c: number | null, unit: TempUnit) => (c === null ? '' : String(Math.round(toDisplayTemp(c, unit) * 10) / 10));
 
-const LABEL: Record<string, string> = { pilotId: 'Pilot', departAt: 'Date and time', readyC: 'Ready temperature', floorC: 'Overnight floor', notes: 'Notes' };
+const LABEL: Record<string, string> = { pilotId: 'Pilot', departAt: 'Date and time', readyC: 'Ready temperature', floorC: 'Overnight floor', holdMinutes: 'Start window', notes: 'Notes' };
 
 /** Change a booked departure: its local date and time, ready temperature, floor, notes and (for operators) the pilot. */
 export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: DepartureRecord; tempUnit: TempUnit; nowMs: number; pilots?: { id: number; name: string }[] }) {
@@ -32,6 +32,7 @@ export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: Departure
     time: formatTime(d.departAtMs, zone),
     readyC: shown(d.readyC, tempUnit),
     floorC: shown(d.floorC, tempUnit),
+    holdMinutes: String(d.holdMinutes),
     notes: d.notes,
     pilotId: String(d.pilot.id),
   });
@@ -50,6 +51,7 @@ export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: Departure
       // An empty ready temperature keeps the stored one (it cannot go below the class's anyway).
       ...(ready === null ? {} : { readyC: ready }),
       floorC: toC(form.floorC, tempUnit),
+      ...(form.holdMinutes.trim() === '' ? {} : { holdMinutes: form.holdMinutes.trim() }),
       notes: form.notes,
       ...(pilots ? { pilotId: Number(form.pilotId) } : {}),
     });
@@ -91,8 +93,13 @@ export function EditDepartureForm({ d, tempUnit, nowMs, pilots }: { d: Departure
         </FieldShell>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id="edit-readyC" label={`Ready temperature (${tempLabel(tempUnit)})`} inputMode="decimal" value={form.readyC} onChange={set('readyC')} error={fields.readyC} hint={`At least the engine class's ${shown(d.classReadyC, tempUnit)} ${tempLabel(tempUnit)}.`} />
+        <TextField id="edit-readyC" label={`Ready temperature (${tempLabel(tempUnit)})`} inputMode="decimal" value={form.readyC} onChange={set('readyC')} error={fields.readyC} hint={
+            d.lowestReadyC !== null
+              ? `At least the engine class's ${shown(d.classReadyC, tempUnit)} ${tempLabel(tempUnit)}; an operator may lower it to the aircraft's ${shown(d.lowestReadyC, tempUnit)} ${tempLabel(tempUnit)} (recorded; follow the engine manual).${d.readyLowered ? ` Lowered by ${d.readyLowered.by}.` : ''}`
+              : `At least the engine class's ${shown(d.classReadyC, tempUnit)} ${tempLabel(tempUnit)}.`
+          } />
         <TextField id="edit-floorC" label={`Overnight floor (${tempLabel(tempUnit)}, optional)`} inputMode="decimal" value={form.floorC} onChange={set('floorC')} error={fields.floorC} hint="Empty: no floor." />
+        <TextField id="edit-holdMinutes" label="Start window (minutes, 0–120)" inputMode="numeric" value={form.holdMinutes} onChange={set('holdMinutes')} error={fields.holdMinutes} hint="Ready through this window after the departure time; the heater stays on until just before start. Unplug before start." />
       </div>
       <FieldShell id="edit-notes" label="Notes (optional)" error={fields.notes}>
         <textarea id="edit-notes" rows={2} maxLength={500} className={`${inputClass} py-2`} value={form.notes} onChange={set('notes')} aria-invalid={fields.notes ? true : undefined} />

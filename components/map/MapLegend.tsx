@@ -8,7 +8,7 @@ const BANDS = [
   { label: '−10 to −20°', bg: '#93cbe2', fg: '#132837' },
   { label: 'below −20°', bg: '#2b769b', fg: '#ffffff' },
 ];
-const EDGE: Record<(typeof READINESS)[number], string> = { ready: '#0f766e', warming: '#e34608', short: '#b91c1c', unplanned: '#6d28d9' };
+const EDGE: Record<(typeof READINESS)[number], string> = { 'no-heat': '#0f766e', ready: '#0f766e', warming: '#e34608', short: '#b91c1c', unplanned: '#6d28d9' };
 
 /**
  * The Site map's key: what a tag shows, the cold shades and (once plans exist) the readiness edges.

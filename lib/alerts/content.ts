@@ -55,6 +55,8 @@ export interface SwitchOnData {
   pilot: { id: number; name: string };
   /** Frost likely on the airframe (outside overnight) before departure. */
   frost?: boolean;
+  /** The end of the start window when the plan keeps the heater on past departure. */
+  holdUntil?: string | null;
 }
 
 export interface ColdNightData {
@@ -213,7 +215,9 @@ export function describeSwitchOn(d: SwitchOnData, unit: TempUnit, nowMs: number)
   if (d.frost) sections.push(FROST_SECTION);
   sections.push({
     heading: 'At the aircraft',
-    items: ['Check the heater, its cord and the socket before you switch on; keep the cord clear of fuel, fabric and wheels.', 'Leave the heater running until departure unless the plan says otherwise.'],
+    items: ['Check the heater, its cord and the socket before you switch on; keep the cord clear of fuel, fabric and wheels.', d.holdUntil
+        ? `Ready from departure through ${localWhen(d.holdUntil, z)} (the start window): leave on until just before start; unplug before start.`
+        : 'Leave the heater running until departure unless the plan says otherwise; unplug before start.'],
     tone: 'heat',
   });
   return {
@@ -227,6 +231,7 @@ export function describeSwitchOn(d: SwitchOnData, unit: TempUnit, nowMs: number)
       { label: 'Where', value: `${d.shelter ? `${d.shelter.name}, ` : ''}${d.airfield.name} (${d.airfield.ident})` },
       { label: 'Departure', value: `${localWhen(d.departAt, z)}, ${d.pilot.name}` },
       { label: 'Predicted oil at departure', value: temp(d.oilAtDepartureC, unit) },
+      ...(d.holdUntil ? [{ label: 'Heater on until', value: `${localWhen(d.holdUntil, z)}: just before start; unplug before start` }] : []),
     ],
     sections,
   };

@@ -238,6 +238,7 @@ function switchOnData(p: PlanView): SwitchOnData {
     shelter: p.shelter,
     heater: { kindLabel: p.heater!.kindLabel, powerW: p.heater!.powerW },
     pilot: p.pilot,
+    holdUntil: p.hold?.heaterOn ? p.hold.until : null,
     frost: !!p.frost?.likely,
   };
 }

@@ -15,6 +15,8 @@ export interface SwitchOnEvent {
   oilAtDepartureC: number | null;
   status: string;
   url: string;
+  /** The end of the start window when the heater stays on past departure. */
+  holdUntilMs?: number | null;
 }
 
 const CAUTION = 'Estimates only: the manufacturer’s cold-weather instructions, your procedures and local rules come first. Keep heaters and cords away from fuel and fabric; never leave a combustion heater unattended.';
@@ -35,6 +37,7 @@ export function switchOnCalendar(events: SwitchOnEvent[], calName: string): stri
       `Heat plan for ${e.registration}, departure ${new Date(e.departAtMs).toISOString().slice(0, 16).replace('T', ' ')} UTC.`,
       `Ready temperature ${e.readyC.toFixed(0)} °C; predicted oil at departure ${e.oilAtDepartureC === null ? 'unknown' : `${e.oilAtDepartureC.toFixed(0)} °C`} (${e.status}).`,
       `Heater: ${e.heaterLabel}, ${e.control}.`,
+      ...(e.holdUntilMs ? [`Start window to ${new Date(e.holdUntilMs).toISOString().slice(11, 16)} UTC: leave on until just before start; unplug before start.`] : []),
       CAUTION,
       e.url,
     ].join('\n'),

@@ -8,6 +8,7 @@ import { Departure } from '@/models/Departure';
 import type { ShelterKind } from '@/models/Shelter';
 import { Conflict, Invalid, NotFound } from '@/lib/api/errors';
 import { aircraftDefaultsFor } from '@/lib/seed/defaults';
+import { heaterWarnings, type EngineClassId } from '@/lib/thermal/presets';
 import {
   classDefaults,
   ENGINE_CLASSES,
@@ -77,7 +78,13 @@ export interface AircraftRecord {
   /** As entered, or null: then the class's typical value (`classDefaults.shutdownOilC`) applies. */
   lastShutdownOilC: number | null;
   /** The engine class's typical values: ready temperature, oil at shutdown, oil quantity. */
-  classDefaults: { readyC: number; shutdownOilC: number; oilL: number };
+  classDefaults: { readyC: number; shutdownOilC: number; oilL: number; engineReadyC: number | null; readinessOil: 'oil' | 'engine' };
+  /** The aircraft's engine-mass threshold as entered, or null: then classDefaults.engineReadyC (estimate). */
+  engineReadyC: number | null;
+  /** The maker's rule in force: the aircraft's own figures where entered, else the class's (estimate: true). */
+  makerRule: { preheatBelowC: number; soakHours: number; minStartOilC: number; estimate: boolean } | null;
+  /** Heater set-ups that mislead (a tank pad alone on a dry sump), with a suggestion. */
+  heaterWarnings: { code: string; text: string; suggestion: string }[];
   oilChangeIntervalHours: number | null;
   oilChangeIntervalMonths: number | null;
   archived: boolean;
@@ -102,6 +109,16 @@ type AircraftWithIncludes = Aircraft & {
   pilots?: { id: number; name: string }[];
   shelter?: (import('@/models/Shelter').Shelter & { airfield?: import('@/models/Airfield').Airfield }) | null;
 };
+
+function makerRuleOf(a: Aircraft): AircraftRecord['makerRule'] {
+  const c = ENGINE_CLASSES[a.engineClass as EngineClassId]?.makerRule;
+  const own = { preheatBelowC: a.preheatBelowC ?? null, soakHours: a.preheatSoakHours ?? null, minStartOilC: a.minStartOilC ?? null };
+  const preheatBelowC = own.preheatBelowC ?? c?.preheatBelowC;
+  const soakHours = own.soakHours ?? c?.soakHours;
+  const minStartOilC = own.minStartOilC ?? c?.minStartOilC;
+  if (preheatBelowC === undefined || soakHours === undefined || minStartOilC === undefined) return null;
+  return { preheatBelowC, soakHours, minStartOilC, estimate: own.preheatBelowC === null || own.soakHours === null || own.minStartOilC === null };
+}
 
 function toRecord(a: AircraftWithIncludes): AircraftRecord {
   const cd = classDefaults(a.engineClass);
@@ -147,7 +164,10 @@ function toRecord(a: AircraftWithIncludes): AircraftRecord {
     pilotIds: pilots.map((p) => p.id),
     lastShutdownAt: a.lastShutdownAt ? new Date(a.lastShutdownAt).toISOString() : null,
     lastShutdownOilC: a.lastShutdownOilC ?? null,
-    classDefaults: { readyC: cd?.readyC ?? 15, shutdownOilC: cd?.shutdownOilC ?? 80, oilL: cd?.oilL ?? a.oilQuantityL },
+    classDefaults: { readyC: cd?.readyC ?? 15, shutdownOilC: cd?.shutdownOilC ?? 80, oilL: cd?.oilL ?? a.oilQuantityL, engineReadyC: cd?.engineReadyC ?? null, readinessOil: cd?.readinessOil ?? 'oil' },
+    engineReadyC: a.engineReadyC ?? null,
+    makerRule: makerRuleOf(a),
+    heaterWarnings: heaterWarnings(a.engineClass, a.heaters ?? []),
     oilChangeIntervalHours: a.oilChangeIntervalHours ?? null,
     oilChangeIntervalMonths: a.oilChangeIntervalMonths ?? null,
     archived: a.archivedAt != null,
@@ -324,6 +344,10 @@ export async function createAircraft({ orgId, input, now = new Date() }: { orgId
         coverOnByDefault: input.coverOnByDefault,
         lastShutdownAt: input.lastShutdownAt ?? null,
         lastShutdownOilC: input.lastShutdownOilC ?? null,
+        engineReadyC: input.engineReadyC ?? null,
+        preheatBelowC: input.preheatBelowC ?? null,
+        preheatSoakHours: input.preheatSoakHours ?? null,
+        minStartOilC: input.minStartOilC ?? null,
       },
       { transaction },
     );
@@ -355,6 +379,10 @@ export async function updateAircraft({ orgId, aircraftId, patch, now = new Date(
     if (patch.shelterId !== undefined) a.shelterId = patch.shelterId;
     if (patch.lastShutdownAt !== undefined) a.lastShutdownAt = patch.lastShutdownAt;
     if (patch.lastShutdownOilC !== undefined) a.lastShutdownOilC = patch.lastShutdownOilC;
+    if (patch.engineReadyC !== undefined) a.engineReadyC = patch.engineReadyC;
+    if (patch.preheatBelowC !== undefined) a.preheatBelowC = patch.preheatBelowC;
+    if (patch.preheatSoakHours !== undefined) a.preheatSoakHours = patch.preheatSoakHours;
+    if (patch.minStartOilC !== undefined) a.minStartOilC = patch.minStartOilC;
     if (patch.archived === false) a.archivedAt = null;
     if (patch.archived === true && !a.archivedAt) a.archivedAt = now;
     await a.save({ transaction });

@@ -74,6 +74,7 @@ export async function feedCalendar({ token, now = new Date(), baseUrl }: { token
       readyC: p.readyC,
       oilAtDepartureC: p.oilAtDepartureC,
       status: p.status,
+      holdUntilMs: p.hold?.heaterOn ? Date.parse(p.hold.until) : null,
       url: `${baseUrl.replace(/\/$/, '')}/board`,
     }));
   return switchOnCalendar(events, 'Thawline switch-on times');

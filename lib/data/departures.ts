@@ -26,8 +26,14 @@ export interface DepartureRecord {
   localDate: string;
   readyC: number;
   floorC: number | null;
-  /** The engine class's ready temperature (the lowest allowed). */
+  /** Start window, minutes: ready from departAt through it; the heater stays on until just before start. */
+  holdMinutes: number;
+  /** The engine class's ready temperature (the lowest allowed without lowering). */
   classReadyC: number;
+  /** The lowest an operator may lower it to: the aircraft's figure (the maker's minimum oil for start), or null. */
+  lowestReadyC: number | null;
+  /** The ready temperature was lowered below the class's: who and when (follow the manual). */
+  readyLowered: { by: string; at: string } | null;
   notes: string;
   cancelled: boolean;
   cancelledAt: string | null;
@@ -52,7 +58,7 @@ async function toRecords(rows: Departure[], orgId: number, transaction?: Transac
   if (!rows.length) return [];
   const { User } = db();
   const aircraftIds = [...new Set(rows.map((r) => r.aircraftId))];
-  const userIds = [...new Set(rows.flatMap((r) => [r.pilotId, r.bookedById]))];
+  const userIds = [...new Set(rows.flatMap((r) => [r.pilotId, r.bookedById, ...(r.readyLoweredById ? [r.readyLoweredById] : [])]))];
   const [aircraft, users] = await Promise.all([
     loadAircraftRecords({ orgId, where: { id: aircraftIds }, transaction }),
     User.findAll({ where: { id: userIds, organizationId: orgId }, attributes: ['id', 'name'], transaction }),
@@ -74,7 +80,10 @@ async function toRecords(rows: Departure[], orgId: number, transaction?: Transac
         localDate: localDateKey(localDateOf(zone, ms)),
         readyC: d.readyC,
         floorC: d.floorC ?? null,
+        holdMinutes: d.holdMinutes ?? 30,
         classReadyC: a.classDefaults.readyC,
+        lowestReadyC: lowestReady(a),
+        readyLowered: d.readyLoweredById && d.readyLoweredAt ? { by: person(d.readyLoweredById).name, at: new Date(d.readyLoweredAt).toISOString() } : null,
         notes: d.notes ?? '',
         cancelled: d.cancelledAt != null,
         cancelledAt: d.cancelledAt ? new Date(d.cancelledAt).toISOString() : null,
@@ -144,6 +153,12 @@ function fmtC(c: number) {
   return `${String(c).replace('-', '\u2212')} °C (${String(f).replace('-', '\u2212')} °F)`;
 }
 
+/** The aircraft's own figure a ready temperature may be lowered to (below the class's), or null. */
+function lowestReady(a: AircraftRecord): number | null {
+  const m = a.makerRule?.minStartOilC;
+  return m !== undefined && m < a.classDefaults.readyC ? m : null;
+}
+
 /** The checks every booking and change passes: time window, temperatures, one departure a day. */
 async function checkDeparture(
   {
@@ -154,7 +169,8 @@ async function checkDeparture(
     floorC,
     exceptId,
     now,
-  }: { orgId: number; aircraft: AircraftRecord; departAtMs: number; readyC: number; floorC: number | null; exceptId?: number; now: Date },
+    mayLower = false,
+  }: { orgId: number; aircraft: AircraftRecord; departAtMs: number; readyC: number; floorC: number | null; exceptId?: number; now: Date; mayLower?: boolean },
   transaction: Transaction,
 ) {
   const issues: { field: string; message: string }[] = [];
@@ -162,8 +178,19 @@ async function checkDeparture(
   if (departAtMs <= nowMs) issues.push({ field: 'departAt', message: 'That time has already passed. Book a departure still to come.' });
   else if (departAtMs > nowMs + MAX_DAYS_AHEAD * DAY_MS) issues.push({ field: 'departAt', message: `Book at most ${MAX_DAYS_AHEAD} days ahead.` });
   const minReady = aircraft.classDefaults.readyC;
+  const lowest = lowestReady(aircraft);
   if (readyC < minReady) {
-    issues.push({ field: 'readyC', message: `The ready temperature cannot be below the engine class’s ${fmtC(minReady)}. Raise it or leave it empty.` });
+    if (!mayLower || lowest === null) {
+      issues.push({
+        field: 'readyC',
+        message:
+          lowest === null
+            ? `The ready temperature cannot be below the engine class’s ${fmtC(minReady)}. Raise it or leave it empty.`
+            : `The ready temperature cannot be below the engine class’s ${fmtC(minReady)}; an operator may lower it to the aircraft’s ${fmtC(lowest)}.`,
+      });
+    } else if (readyC < lowest) {
+      issues.push({ field: 'readyC', message: `The ready temperature can be lowered to the aircraft’s figure, ${fmtC(lowest)}, not below.` });
+    }
   }
   if (floorC !== null && floorC > readyC) issues.push({ field: 'floorC', message: 'The overnight floor cannot be above the ready temperature.' });
   if (issues.length) throw new Invalid(issues);
@@ -233,9 +260,23 @@ export async function bookDeparture({ orgId, actor, input, now = new Date() }: {
     const departAtMs = resolveDepartAt(input.departAt, zoneOf(aircraft));
     const readyC = input.readyC ?? aircraft.classDefaults.readyC;
     const floorC = input.floorC ?? null;
-    await checkDeparture({ orgId, aircraft, departAtMs, readyC, floorC, now }, transaction);
+    const holdMinutes = input.holdMinutes ?? (await db().Organization.findByPk(orgId, { attributes: ['holdMinutes'], transaction }))?.holdMinutes ?? 30;
+    await checkDeparture({ orgId, aircraft, departAtMs, readyC, floorC, now, mayLower: actor.bookAny }, transaction);
+    const lowered = readyC < aircraft.classDefaults.readyC;
     const row = await Departure.create(
-      { organizationId: orgId, aircraftId: aircraft.id, pilotId, bookedById: actor.id, departAt: new Date(departAtMs), readyC, floorC, notes: input.notes },
+      {
+        organizationId: orgId,
+        aircraftId: aircraft.id,
+        pilotId,
+        bookedById: actor.id,
+        departAt: new Date(departAtMs),
+        readyC,
+        floorC,
+        holdMinutes,
+        notes: input.notes,
+        readyLoweredById: lowered ? actor.id : null,
+        readyLoweredAt: lowered ? now : null,
+      },
       { transaction },
     );
     return getDeparture({ orgId, departureId: row.id, transaction });
@@ -280,10 +321,21 @@ export async function updateDeparture({
     const departAtMs = patch.departAt ? resolveDepartAt(patch.departAt, zoneOf(aircraft)) : new Date(row.departAt).getTime();
     const readyC = patch.readyC ?? row.readyC;
     const floorC = patch.floorC === undefined ? (row.floorC ?? null) : patch.floorC;
-    await checkDeparture({ orgId, aircraft, departAtMs, readyC, floorC, exceptId: row.id, now }, transaction);
+    await checkDeparture({ orgId, aircraft, departAtMs, readyC, floorC, exceptId: row.id, now, mayLower: actor.bookAny }, transaction);
+    // Lowered below the class's: recorded (who, when) when it changes; cleared once it is back up.
+    if (readyC < aircraft.classDefaults.readyC) {
+      if (readyC !== row.readyC || !row.readyLoweredAt) {
+        row.readyLoweredById = actor.id;
+        row.readyLoweredAt = now;
+      }
+    } else {
+      row.readyLoweredById = null;
+      row.readyLoweredAt = null;
+    }
     row.departAt = new Date(departAtMs);
     row.readyC = readyC;
     row.floorC = floorC;
+    if (patch.holdMinutes !== undefined) row.holdMinutes = patch.holdMinutes;
     if (patch.notes !== undefined) row.notes = patch.notes;
     await row.save({ transaction });
     return getDeparture({ orgId, departureId: row.id, transaction });

@@ -2,11 +2,11 @@ import 'server-only';
 import crypto from 'node:crypto';
 import { db } from '@/models';
 import { NotFound } from '@/lib/api/errors';
-import { planDeparture } from '@/lib/planner';
+import { planDeparture, windowMinimum } from '@/lib/planner';
 import type { PlanResult } from '@/lib/planner/types';
 import { simulate } from '@/lib/thermal';
 import { withHeater } from '@/lib/planner/model';
-import { MAX_SOAK_HOURS, planRequestFor, primaryHeater, soakModelFor, type PlanRecords } from '@/lib/plans/build';
+import { MAX_SOAK_HOURS, plannedHeaterFor, planRequestFor, primaryHeater, soakModelFor, type PlanRecords } from '@/lib/plans/build';
 import { forecastFor } from './forecasts';
 import { getDeparture, listDepartures, type Actor, type DepartureRecord } from './departures';
 import { tariffPeriodsBetween, tariffsFor, type TariffRecord } from './tariffs';
@@ -20,6 +20,8 @@ import type { InferCreationAttributes } from 'sequelize';
 
 import { worstReadiness, type Readiness } from '@/lib/plans/state';
 import { frostRisk } from '@/lib/plans/frost';
+import { makerVerdict } from '@/lib/plans/maker-rule';
+import { ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
 export type { Readiness };
 
 /** Plans are recomputed at most this often for the same inputs (the clock moves the earliest switch-on). */
@@ -31,6 +33,10 @@ export interface PlanView {
   departAt: string;
   readyC: number;
   floorC: number | null;
+  /** Start window, minutes: leave the heater on until just before start; unplug before start. */
+  holdMinutes: number;
+  /** The start window as planned: until when, and the lowest oil (and engine mass) over it. */
+  hold: { until: string; minOilC: number; minEngineC: number | null; heaterOn: boolean } | null;
   notes: string;
   aircraft: { id: number; registration: string; typeLabel: string; engineClassLabel: string; coverOnByDefault: boolean };
   pilot: { id: number; name: string };
@@ -58,6 +64,10 @@ export interface PlanView {
   /** Frost on the airframe before departure (aircraft outside only; null under a roof or without a forecast). */
   frost: { likely: boolean; hours: number; from: string | null; to: string | null } | null;
   problem?: string;
+  /** The ready temperature was lowered to the aircraft's figure: who and when (the caution to follow the manual goes with it). */
+  readyLowered: { by: string; at: string } | null;
+  /** Heater set-ups that mislead (a tank pad alone on a dry sump), with a suggestion. */
+  warnings: { code: string; text: string; suggestion: string }[];
 }
 
 interface Context {
@@ -74,19 +84,21 @@ function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
   // Prices from before the earliest possible switch-on (now, or the soak start) to after departure.
   const startMs = Math.min(ctx.now.getTime(), d.departAtMs - MAX_SOAK_HOURS * 3_600_000) - 3_600_000;
   return {
-    departure: { id: d.id, departAtMs: d.departAtMs, readyC: d.readyC, floorC: d.floorC },
+    departure: { id: d.id, departAtMs: d.departAtMs, readyC: d.readyC, floorC: d.floorC, holdMinutes: d.holdMinutes },
     aircraft: {
       engineClass: d.aircraft.engineClass,
       thermal: d.aircraft.thermal,
       coverOnByDefault: d.aircraft.coverOnByDefault,
       lastShutdownAtMs: d.aircraft.lastShutdownAt ? Date.parse(d.aircraft.lastShutdownAt) : null,
       lastShutdownOilC: d.aircraft.lastShutdownOilC,
+      engineReadyC: d.aircraft.engineReadyC,
+      makerRule: d.aircraft.makerRule,
     },
     heaters: d.aircraft.heaters.map((h) => ({ kind: h.kind, powerW: h.powerW, node: h.node, control: h.control, slotMinutes: h.slotMinutes })),
     shelter: d.aircraft.shelter,
     site: { lat: af.latitude, lon: af.longitude },
     hours: fc.hours,
-    tariff: tariffPeriodsBetween({ tariff, timeZone: af.timeZone, fromMs: startMs, toMs: d.departAtMs + 3_600_000 }).map((p) => ({
+    tariff: tariffPeriodsBetween({ tariff, timeZone: af.timeZone, fromMs: startMs, toMs: d.departAtMs + (d.holdMinutes + 60) * 60_000 }).map((p) => ({
       fromMs: p.fromMs,
       toMs: p.toMs,
       pricePerKWh: p.pricePerKWh,
@@ -111,11 +123,21 @@ interface Computed {
 
 function compute(r: PlanRecords, nowMs: number): Computed {
   const model = soakModelFor(r);
+  // The maker's rule first: a departure that meets it unheated needs no heat (no plan, no warning).
+  const rule = r.aircraft.makerRule;
+  if (rule) {
+    const startOil = ENGINE_CLASSES[r.aircraft.engineClass as EngineClassId]?.readinessOil ?? 'oil';
+    const v = makerVerdict(model, rule, { departureMs: r.departure.departAtMs, holdMinutes: r.departure.holdMinutes, startOil });
+    if (v.noHeatNeeded) return { status: 'no-heat', result: null, freeOilC: simulate(model, { atMs: [r.departure.departAtMs] }).oilC[0] };
+  }
   const req = planRequestFor(r, Math.floor(nowMs / NOW_STEP_MS) * NOW_STEP_MS, model);
   if (!req) {
     const s = simulate(model, { atMs: [r.departure.departAtMs] });
     const free = s.oilC[0];
-    return { status: free >= r.departure.readyC ? 'ready' : 'unplanned', result: null, freeOilC: free };
+    // Ready without heat only if the oil holds through the start window too.
+    const dep = r.departure.departAtMs;
+    const w = windowMinimum(model, dep, dep + (r.departure.holdMinutes ?? 0) * 60_000);
+    return { status: w.oilC >= r.departure.readyC ? 'ready' : 'unplanned', result: null, freeOilC: free };
   }
   const result = planDeparture(req);
   return { status: result.status, result, freeOilC: result.freeOilAtDepartureC };
@@ -123,6 +145,8 @@ function compute(r: PlanRecords, nowMs: number): Computed {
 
 function summaryOf(status: Readiness, v: { heater: PlanView['heater']; fix: PlanView['fix'] }): string {
   switch (status) {
+    case 'no-heat':
+      return 'No heat needed by the engine maker’s rule (estimate: follow the manual)';
     case 'ready':
       return 'Warm enough without heat';
     case 'warming':
@@ -147,6 +171,8 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     departAt: d.departAt,
     readyC: d.readyC,
     floorC: d.floorC,
+    holdMinutes: d.holdMinutes,
+    hold: r?.hold ? { until: iso(r.hold.untilMs)!, minOilC: r.hold.minOilC, minEngineC: r.hold.minEngineC ?? null, heaterOn: r.hold.heaterOn } : null,
     notes: d.notes,
     aircraft: { id: d.aircraft.id, registration: d.aircraft.registration, typeLabel: d.aircraft.typeLabel, engineClassLabel: d.aircraft.engineClassLabel, coverOnByDefault: d.aircraft.coverOnByDefault },
     pilot: d.pilot,
@@ -180,6 +206,8 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     computedAt: (plan?.computedAt ?? ctx.now).toISOString(),
     forecast: fc ? { fetchedAt: fc.fetchedAt ? new Date(fc.fetchedAt).toISOString() : null, stale: !!fc.lastErrorKind } : null,
     frost: frostOf(d, fc),
+    warnings: d.aircraft.heaterWarnings ?? [],
+    readyLowered: d.readyLowered ?? null,
   };
 }
 
@@ -297,7 +325,7 @@ export async function morningBoard({ orgId, now = new Date(), airfieldId, refres
     (t, p) => ({ energyKWh: t.energyKWh + p.energyKWh, cost: t.cost + (p.cost ?? 0) }),
     { energyKWh: 0, cost: 0 },
   );
-  const counts = { ready: 0, warming: 0, short: 0, unplanned: 0 } as Record<Readiness, number>;
+  const counts = { 'no-heat': 0, ready: 0, warming: 0, short: 0, unplanned: 0 } as Record<Readiness, number>;
   for (const p of plans) counts[p.status]++;
   return { generatedAt: now.toISOString(), window: { from: iso(w.fromMs)!, to: iso(w.toMs)! }, plans, totals, counts };
 }
@@ -324,9 +352,9 @@ export async function planDetail({ orgId, departureId, actor, now = new Date() }
   let series: { at: string; outsideC: number; shelterC: number; oilC: number; engineC: number | null }[] = [];
   if (rec) {
     const model = soakModelFor(rec);
-    const heater = primaryHeater(rec.heaters);
+    const heater = plannedHeaterFor(rec, model);
     const on = view.heaterOn.map((i) => ({ fromMs: Date.parse(i.from), toMs: Date.parse(i.to) }));
-    const m = heater && on.length ? withHeater(model, { node: heater.node === 'engine' && !model.engine ? 'oil' : heater.node, powerW: heater.powerW }, on) : model;
+    const m = heater && on.length ? withHeater(model, heater, on) : model;
     const s = simulate(m, { outputEveryMinutes: 10 });
     series = Array.from(s.atMs, (t, i) => ({
       at: iso(t)!,
@@ -358,7 +386,7 @@ export async function readinessByAirfield({ orgId, now = new Date(), refresh = '
   const out = new Map<number, { readiness: Readiness; departures: number; counts: Record<Readiness, number> }>();
   for (const p of board.plans) {
     if (!p.airfield) continue;
-    const cur = out.get(p.airfield.id) ?? { readiness: p.status, departures: 0, counts: { ready: 0, warming: 0, short: 0, unplanned: 0 } };
+    const cur = out.get(p.airfield.id) ?? { readiness: p.status, departures: 0, counts: { 'no-heat': 0, ready: 0, warming: 0, short: 0, unplanned: 0 } };
     cur.readiness = worstReadiness([cur.readiness, p.status])!;
     cur.departures++;
     cur.counts[p.status]++;

@@ -14,7 +14,7 @@
 // margin above the ready temperature that makes P reach the target, found by bisection, re-planned
 // until the plan's own breakdown agrees (the heater term grows with the heat). Pure, no I/O.
 import { stateAt, type NodeName, type SoakModel } from '@/lib/thermal';
-import { planDeparture } from './plan';
+import { planDeparture } from './hold';
 import { withHeater } from './model';
 import { normalCdf } from './probability';
 import type { Interval, PlanRequest, PlanResult } from './types';

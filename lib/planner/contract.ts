@@ -2,7 +2,7 @@
 // JSON-ready output (ISO times, rounded numbers) out. Shared by `npm run plan` and POST /api/v1/plans.
 import { toSoakModel } from '@/lib/thermal';
 import type { PlanInput } from '@/lib/validation/plan';
-import { planDeparture } from './plan';
+import { planDeparture } from './hold';
 import type { Baseline, PlanRequest, PlanResult } from './types';
 
 const ms = (s: string) => Date.parse(s);
@@ -39,6 +39,8 @@ export interface PlanJson {
     dipRows: number;
   };
   optimality?: PlanResult['optimality'];
+  /** The start window (with plan.holdMinutes > 0 or plan.engineReadyC). */
+  hold?: { until: string; minOilC: number; minEngineC?: number; met: boolean; heaterOn: boolean };
   departure: string;
   readyC: number;
   targetC: number;
@@ -66,6 +68,8 @@ export function toPlanRequest(input: PlanInput): PlanRequest {
     baselineHours: p.baselineHours,
     uncertainty: p.correlationHours !== undefined ? { correlationHours: p.correlationHours } : undefined,
     targetProbability: p.targetProbability,
+    holdMinutes: p.holdMinutes,
+    engineReadyC: p.engineReadyC,
   };
 }
 
@@ -125,6 +129,17 @@ export function toPlanJson(res: PlanResult): PlanJson {
         }
       : {}),
     ...(res.optimality ? { optimality: res.optimality } : {}),
+    ...(res.hold
+      ? {
+          hold: {
+            until: iso(res.hold.untilMs),
+            minOilC: t4(res.hold.minOilC),
+            ...(res.hold.minEngineC !== undefined ? { minEngineC: t4(res.hold.minEngineC) } : {}),
+            met: res.hold.met,
+            heaterOn: res.hold.heaterOn,
+          },
+        }
+      : {}),
     departure: iso(res.departureMs),
     readyC: res.readyC,
     targetC: t4(res.targetC),

@@ -2,9 +2,14 @@
 import { oilMinimum, simulate, stateAt, type HeaterInterval, type NodeName, type SoakModel } from '@/lib/thermal';
 import type { Interval } from './types';
 
-/** The model with the planned heater on over `on` (its own heaters kept). */
-export function withHeater(model: SoakModel, heater: { node: NodeName; powerW: number }, on: readonly Interval[]): SoakModel {
-  const planned: HeaterInterval[] = on.map((i) => ({ node: heater.node, powerW: heater.powerW, fromMs: i.fromMs, toMs: i.toMs }));
+/** The heaters switched together (one control): the parts when given, else the heater itself. */
+export function partsOf(heater: { node: NodeName; powerW: number; parts?: readonly { node: NodeName; powerW: number }[] }): { node: NodeName; powerW: number }[] {
+  return heater.parts?.length ? [...heater.parts] : [{ node: heater.node, powerW: heater.powerW }];
+}
+
+/** The model with the planned heater (each of its parts on its own node) on over `on` (its own heaters kept). */
+export function withHeater(model: SoakModel, heater: { node: NodeName; powerW: number; parts?: readonly { node: NodeName; powerW: number }[] }, on: readonly Interval[]): SoakModel {
+  const planned: HeaterInterval[] = partsOf(heater).flatMap((h) => on.map((i) => ({ node: h.node, powerW: h.powerW, fromMs: i.fromMs, toMs: i.toMs })));
   return { ...model, heaters: [...(model.heaters ?? []), ...planned] };
 }
 

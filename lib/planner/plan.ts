@@ -22,7 +22,7 @@ import { oilResponses, slotTransitions, type OilResponseAt } from '@/lib/thermal
 import { coverExact, coverRelaxation } from './cover';
 import { solveFloorDp, type DpRow } from './labels';
 import { meetsRows, roundCover, type CoverRow } from './lp';
-import { oilAt, oilMinimumBetween, restartAt, withHeater } from './model';
+import { oilAt, oilMinimumBetween, partsOf, restartAt, withHeater } from './model';
 import { normalQuantile, oilUncertainty, probabilityReady } from './probability';
 import { kWhOf, mergeIntervals, pricingOf, slotGrid, type Pricing } from './slots';
 import {
@@ -49,6 +49,29 @@ export const CHECK_TOL_K = 1e-5;
 const FIX_HORIZON_MS = 48 * 3_600_000;
 const MAX_FLOOR_ROUNDS = 4;
 
+/**
+ * Oil responses per slot for the planned heater: for several heaters on one control, by linearity
+ * the power-weighted sum of each part's per-watt response (per watt of the total).
+ */
+function responses(model: SoakModel, heater: PlanRequest['heater'], slots: readonly Interval[], times: number[]): OilResponseAt[] {
+  const parts = partsOf(heater);
+  if (parts.length === 1) return oilResponses(model, { node: parts[0].node, slots, times });
+  const rs = parts.map((pt) => oilResponses(model, { node: pt.node, slots, times }));
+  const P = heater.powerW;
+  return rs[0].map((r0, i) => ({
+    ...r0,
+    perWattK: Float64Array.from(r0.perWattK, (_, k) => parts.reduce((s, pt, j) => s + (pt.powerW / P) * rs[j][i].perWattK[k], 0)),
+  }));
+}
+
+/** Slot transitions of the heated nodes for the planned heater: the same M, the parts' heat g added. */
+function transitions(model: SoakModel, heater: PlanRequest['heater'], slots: readonly Interval[]) {
+  const parts = partsOf(heater);
+  const trs = parts.map((pt) => slotTransitions(model, { node: pt.node, powerW: pt.powerW, slots }));
+  if (trs.length === 1) return trs[0];
+  return { ...trs[0], g: trs[0].g.map((g0, k) => Float64Array.from(g0, (v, h) => trs.reduce((s, t) => s + t.g[k][h], 0))) };
+}
+
 function validate(req: PlanRequest): void {
   const m = req.model;
   const T = req.departureMs;
@@ -56,8 +79,11 @@ function validate(req: PlanRequest): void {
     throw new PlanInputError('plan.departure', 'Departure must lie within the run, from start to end.');
   }
   if (!(req.heater.powerW > 0)) throw new PlanInputError('plan.heater.powerW', 'The heater power must be greater than 0.');
-  if (req.heater.node === 'engine' && !m.engine) {
+  if (partsOf(req.heater).some((h) => h.node === 'engine') && !m.engine) {
     throw new PlanInputError('plan.heater.node', 'No "engine" node in this engine: the one-node form has "oil" only.');
+  }
+  if (req.heater.parts?.length && Math.abs(req.heater.parts.reduce((s, h) => s + h.powerW, 0) - req.heater.powerW) > 1e-6 * req.heater.powerW) {
+    throw new PlanInputError('plan.heater.powerW', 'With parts, the power must be the sum of the parts’ powers.');
   }
   const slotMin = req.slotMinutes ?? DEFAULT_SLOT_MINUTES;
   if (!(slotMin > 0)) throw new PlanInputError('plan.slotMinutes', 'Must be greater than 0.');
@@ -134,7 +160,7 @@ function leastCost(p: Problem, rows: readonly CoverRow[], floorResp: readonly Oi
   const inc = roundCover(obj, rows, sol.on);
   const incCost = sumOn(obj, inc);
   const K = p.slots.length;
-  const tr = slotTransitions(p.model, { node: p.req.heater.node, powerW: p.req.heater.powerW, slots: p.slots });
+  const tr = transitions(p.model, p.req.heater, p.slots);
   const H = tr.nodes.length;
   const slotOf = (t: number) => {
     let lo = 0;
@@ -221,7 +247,7 @@ function latestSwitchOn(p: Problem, lo: number, hi: number): number {
 }
 
 function floorResponses(p: Problem, times: number[]): OilResponseAt[] {
-  return times.length ? oilResponses(p.model, { node: p.req.heater.node, slots: p.slots, times }) : [];
+  return times.length ? responses(p.model, p.req.heater, p.slots, times) : [];
 }
 
 /** Cost in the objective's units (cost plus the energy tie-break) of intervals. */
@@ -265,7 +291,7 @@ function finerSwitchOn(p: Problem, on: Uint8Array, need: number, stepMs: number)
     const { fromMs, toMs } = slots[c.k];
     for (let m = 1; toMs - (m - 1) * stepMs > fromMs + 1e-6; m++) tails.push({ fromMs: Math.max(fromMs, toMs - m * stepMs), toMs });
   }
-  const [r] = oilResponses(p.model, { node: p.req.heater.node, slots: tails, times: [p.T] });
+  const [r] = responses(p.model, p.req.heater, tails, [p.T]);
   const gridCost = objectiveOf(p, intervalsOf(slots, on));
   let best: { intervals: Interval[]; cost: number; predictedC: number } | null = null;
   candidates.forEach((c, ci) => {
@@ -284,8 +310,12 @@ function finerSwitchOn(p: Problem, on: Uint8Array, need: number, stepMs: number)
   return best;
 }
 
-/** Plans the heat for one departure. Throws PlanInputError (naming the field) for requests it cannot plan. */
-export function planDeparture(req: PlanRequest): PlanResult {
+/**
+ * Plans the heat for one departure, judged at the departure instant only (the start window on top is
+ * lib/planner/hold.ts, which every caller goes through as planDeparture). Throws PlanInputError
+ * (naming the field) for requests it cannot plan.
+ */
+export function planAtDeparture(req: PlanRequest): PlanResult {
   validate(req);
   const model = req.model;
   const T = req.departureMs;
@@ -305,7 +335,7 @@ export function planDeparture(req: PlanRequest): PlanResult {
   const tie = 1e-9 * (priceScale > 0 ? priceScale : 1);
   const objective = Float64Array.from(cost, (c, k) => c + tie * kWh[k]);
 
-  const [atT] = oilResponses(model, { node: req.heater.node, slots, times: [T] });
+  const [atT] = responses(model, req.heater, slots, [T]);
   const a = Float64Array.from(atT.perWattK, (w) => w * P);
   const issuedAtMs = req.forecastIssuedAtMs ?? req.nowMs ?? model.startMs;
   const uncertainty = oilUncertainty(model, atT, { departureMs: T, issuedAtMs, correlationHours: req.uncertainty?.correlationHours });
@@ -401,7 +431,7 @@ export function planDeparture(req: PlanRequest): PlanResult {
       const stepped = Math.max(earliest, T - Math.ceil((T - latestSwitchOnAtMs) / stepMs - 1e-9) * stepMs);
       if (stepped > heaterOn[0].fromMs) {
         heaterOn = [{ fromMs: stepped, toMs: T }];
-        const [r] = oilResponses(model, { node: req.heater.node, slots: heaterOn, times: [T] });
+        const [r] = responses(model, req.heater, heaterOn, [T]);
         predictedOilAtDepartureC = r.perWattK.reduce((x, w) => x + w * P, r.baseOilC);
       }
     }

@@ -11,6 +11,12 @@ export type PlanMode = 'least-cost' | 'single-start';
  */
 export type PlanStatus = 'ready' | 'warming' | 'short';
 
+export interface PlannedHeater {
+  node: NodeName;
+  powerW: number;
+  parts?: readonly { node: NodeName; powerW: number }[];
+}
+
 /** One period of a time-of-use tariff: the price holds over [fromMs, toMs). */
 export interface TariffPeriod {
   fromMs: number;
@@ -25,7 +31,11 @@ export interface PlanRequest {
   readyC: number;
   /** The overnight floor: the oil must not fall below it from the earliest switch-on to departure. */
   floorC?: number;
-  heater: { node: NodeName; powerW: number };
+  /**
+   * The heater the plan switches. Several heaters on one control are one schedule: give `parts`
+   * (each on its own node; their powers add) and `powerW` = their sum, `node` = the first part's.
+   */
+  heater: PlannedHeater;
   /** Time-of-use periods covering [earliest switch-on, departure]; without them the price is flat. */
   tariff?: readonly TariffPeriod[];
   /** A flat price, used when no tariff is given (cost is then reported); without either, cost is not reported. */
@@ -62,6 +72,25 @@ export interface PlanRequest {
   targetMarginK?: number;
   /** Branch-and-bound node limit for the slot choice (default 200 000). */
   maxNodes?: number;
+  /**
+   * The start window, minutes (default 0: judged at the departure instant only). The oil (and the
+   * engine mass, with engineReadyC) must stay at or above ready from departure through the hold, and
+   * the heater stays on through it: nobody starts at the booked minute (walk-round, oil check).
+   */
+  holdMinutes?: number;
+  /** The engine-mass threshold (two-node models only): readiness needs it too, over the whole window. */
+  engineReadyC?: number;
+}
+
+/** The start window as planned: lowest temperatures over [departure, until], re-simulated. */
+export interface HoldReport {
+  untilMs: number;
+  minOilC: number;
+  minEngineC?: number;
+  /** Both thresholds held at every instant of the window. */
+  met: boolean;
+  /** The heater is kept on from departure to untilMs (false when no heat is needed at all). */
+  heaterOn: boolean;
 }
 
 export interface Interval {
@@ -163,6 +192,8 @@ export interface PlanResult {
   probabilityReady: number;
   uncertainty: Uncertainty;
   optimality?: Optimality;
+  /** With a start window (holdMinutes > 0) or an engine-mass threshold. */
+  hold?: HoldReport;
 }
 
 /** A request the planner cannot work with; `field` names the request field (dotted path). */

@@ -2,9 +2,11 @@
 // No database, network or clock: the caller passes `nowMs` and the forecast hours.
 import type { ForecastHour } from '@/lib/weather/types';
 import { toSoakInputs } from '@/lib/weather/derive';
-import { ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
+import { ENGINE_CLASSES, engineThresholdFor, type EngineClassId } from '@/lib/thermal/presets';
 import { outsideAt, type SoakModel } from '@/lib/thermal';
-import type { PlanMode, PlanRequest, TariffPeriod } from '@/lib/planner/types';
+import type { PlanMode, PlannedHeater, PlanRequest, TariffPeriod } from '@/lib/planner/types';
+import { oneControl } from '@/lib/planner/joint';
+import { COMBUSTION_HEATER_KINDS } from '@/lib/devices/commands';
 
 const HOUR = 3_600_000;
 /** How long before departure the model starts at the latest (a longer-parked engine is cold-soaked). */
@@ -15,7 +17,7 @@ export const AFTER_DEPARTURE_HOURS = 1.5;
 export type HeaterControl = 'timer' | 'relay' | 'manual';
 
 export interface PlanRecords {
-  departure: { id: number; departAtMs: number; readyC: number; floorC: number | null };
+  departure: { id: number; departAtMs: number; readyC: number; floorC: number | null; /** Start window, minutes (default 0). */ holdMinutes?: number };
   aircraft: {
     engineClass: string;
     thermal: {
@@ -27,6 +29,10 @@ export interface PlanRecords {
     coverOnByDefault: boolean;
     lastShutdownAtMs: number | null;
     lastShutdownOilC: number | null;
+    /** The aircraft's engine-mass threshold, °C (null or absent: the class's, estimate). */
+    engineReadyC?: number | null;
+    /** The maker's rule in force (the aircraft's figures, else the class's estimate); absent: none. */
+    makerRule?: { preheatBelowC: number; soakHours: number; minStartOilC: number; estimate: boolean } | null;
   };
   heaters: { kind: string; powerW: number; node: 'oil' | 'engine'; control: HeaterControl; slotMinutes: number }[];
   shelter: { kind: string; heatCapacityJPerK: number; lossWPerK: number; setpointC: number | null; heatingPowerW: number | null; solarApertureM2: number } | null;
@@ -42,7 +48,9 @@ export function primaryHeater<H extends { powerW: number }>(heaters: readonly H[
 }
 
 /** A relay can follow the least-cost slots; a plain timer, or a heater switched by hand, goes on once and stays on to departure. */
-export function modeFor(control: HeaterControl): PlanMode {
+export function modeFor(control: HeaterControl, kind?: string): PlanMode {
+  // A combustion heater is attended only: never a relay's slot schedule, one attended block at most.
+  if (kind !== undefined && COMBUSTION_HEATER_KINDS.includes(kind)) return 'single-start';
   return control === 'relay' ? 'least-cost' : 'single-start';
 }
 
@@ -78,7 +86,8 @@ export function soakModelFor(r: PlanRecords): SoakModel {
         };
   return {
     startMs,
-    endMs: dep + AFTER_DEPARTURE_HOURS * HOUR,
+    // On past departure through the start window and a little beyond, so the chart shows the hold.
+    endMs: dep + Math.max(AFTER_DEPARTURE_HOURS * HOUR, ((r.departure.holdMinutes ?? 0) + 30) * 60_000),
     outside: inputs.outside,
     wind: inputs.wind,
     cloud: inputs.cloud,
@@ -93,6 +102,18 @@ export function soakModelFor(r: PlanRecords): SoakModel {
   };
 }
 
+/**
+ * The heater the plan switches: the strongest one fitted and every heater on the same control with it,
+ * as one schedule (their powers add, each on its own node). Heaters on other controls are not in this
+ * schedule (lib/planner/joint.ts plans controls jointly; the stored plan keeps one control).
+ */
+export function plannedHeaterFor(r: PlanRecords, model: SoakModel): PlannedHeater | null {
+  const primary = primaryHeater(r.heaters);
+  if (!primary) return null;
+  const node = (n: 'oil' | 'engine') => (n === 'engine' && !model.engine ? 'oil' : n);
+  return oneControl(r.heaters.filter((h) => h.control === primary.control).map((h) => ({ node: node(h.node), powerW: h.powerW })));
+}
+
 /** The planner's request for a departure, or null when the aircraft has no heater. */
 export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelFor(r)): PlanRequest | null {
   const heater = primaryHeater(r.heaters);
@@ -102,12 +123,16 @@ export function planRequestFor(r: PlanRecords, nowMs: number, model = soakModelF
     departureMs: r.departure.departAtMs,
     readyC: r.departure.readyC,
     ...(r.departure.floorC !== null ? { floorC: r.departure.floorC } : {}),
-    heater: { node: heater.node === 'engine' && !model.engine ? 'oil' : heater.node, powerW: heater.powerW },
+    heater: plannedHeaterFor(r, model)!,
     tariff: r.tariff,
     slotMinutes: heater.slotMinutes || 5,
     earliestSwitchOnMs: Math.max(model.startMs, Math.min(nowMs, r.departure.departAtMs)),
-    mode: modeFor(heater.control),
+    mode: modeFor(heater.control, heater.kind),
     nowMs,
     forecastIssuedAtMs: r.forecastIssuedAtMs ?? nowMs,
+    holdMinutes: r.departure.holdMinutes ?? 0,
+    // The whole engine: the engine mass too (two-node models), at the aircraft's or the class's
+    // threshold; for a dry sump the engine-side oil lies in the engine node, so at least readyC.
+    ...(model.engine ? { engineReadyC: engineThresholdFor(r.aircraft.engineClass, r.departure.readyC, r.aircraft.engineReadyC) } : {}),
   };
 }

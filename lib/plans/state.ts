@@ -5,10 +5,10 @@
 import { formatDayTime, formatTime, localDateKey, localDateOf } from '@/lib/time';
 
 /** What the plan predicts for the departure (the stored values; their order is the severity order below). */
-export const READINESS = ['ready', 'warming', 'short', 'unplanned'] as const;
+export const READINESS = ['no-heat', 'ready', 'warming', 'short', 'unplanned'] as const;
 export type Readiness = (typeof READINESS)[number];
 
-const RANK: Record<Readiness, number> = { ready: 0, warming: 1, unplanned: 2, short: 3 };
+const RANK: Record<Readiness, number> = { 'no-heat': 0, ready: 0, warming: 1, unplanned: 2, short: 3 };
 
 /** The most severe of several readiness states (a field's tag on the map), or null for none. */
 export function worstReadiness(list: readonly Readiness[]): Readiness | null {
@@ -17,6 +17,7 @@ export function worstReadiness(list: readonly Readiness[]): Readiness | null {
 
 /** Word, glyph (so it reads without colour) and a hint for each readiness state. */
 export const READINESS_STYLE: Record<Readiness, { label: string; glyph: string; hint: string }> = {
+  'no-heat': { label: 'No heat needed', glyph: '○', hint: 'meets the engine maker’s rule unheated (estimate: follow the manual)' },
   ready: { label: 'Ready', glyph: '✓', hint: 'warm enough at departure without heat' },
   warming: { label: 'Heat planned', glyph: '▲', hint: 'a heat plan reaches the ready temperature by departure' },
   short: { label: 'Short', glyph: '!', hint: 'no plan reaches the ready temperature in time' },
@@ -52,7 +53,7 @@ export interface PlanTimes {
 
 export function heaterStateAt(p: PlanTimes, nowMs: number): HeaterState {
   if (p.status === 'short' || p.status === 'unplanned') return p.status;
-  if (!p.switchOnAt || !p.heaterOn.length) return p.status === 'ready' ? 'no-heat' : 'scheduled';
+  if (!p.switchOnAt || !p.heaterOn.length) return p.status === 'ready' || p.status === 'no-heat' ? 'no-heat' : 'scheduled';
   const on = Date.parse(p.switchOnAt);
   if (nowMs < on) return 'scheduled';
   const lastEnd = Math.max(...p.heaterOn.map((i) => Date.parse(i.to)), Date.parse(p.departAt));
@@ -99,4 +100,16 @@ export function sameLocalDay(aMs: number, bMs: number, zone: string): boolean {
 /** A time for people: "02:11" when it is today in the zone, "Thu 02:11" on any other day. */
 export function whenLabel(ms: number, zone: string, nowMs: number): string {
   return sameLocalDay(ms, nowMs, zone) ? formatTime(ms, zone) : formatDayTime(ms, zone);
+}
+
+/** What the pilot does at the end of the start window: the heater stays on until just before start. */
+export const HOLD_ADVICE = 'Leave on until just before start; unplug before start.';
+
+/**
+ * The start window in one line when the plan keeps the heater on past departure: "Ready through 08:30:
+ * leave on until just before start; unplug before start." Null without a hold.
+ */
+export function holdLine(p: { hold: { until: string; heaterOn: boolean } | null; holdMinutes?: number }, zone: string, nowMs: number): string | null {
+  if (!p.hold || !p.hold.heaterOn) return null;
+  return `Ready through ${whenLabel(Date.parse(p.hold.until), zone, nowMs)}${p.holdMinutes ? ` (${p.holdMinutes} min start window)` : ''}: ${HOLD_ADVICE.charAt(0).toLowerCase()}${HOLD_ADVICE.slice(1)}`;
 }

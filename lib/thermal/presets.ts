@@ -48,7 +48,31 @@ export interface EngineClassPreset {
   shutdownOilC: number;
   shutdownEngineC: number;
   readyC: number;
+  /**
+   * The engine-mass threshold (crankcase and cylinders), °C, estimate: readiness needs the engine
+   * node at or above it as well as the oil at readyC (an aircraft may override it).
+   */
+  engineReadyC: number;
+  /**
+   * Which node's oil readiness is judged on. 'oil': the oil node (a wet sump). 'engine': the engine
+   * node — for the dry-sump class the oil that matters at start is on the engine side (crankcase,
+   * lines, the sensor the pilot reads), and in this model it lies in the engine node with the metal;
+   * the "oil" node is the tank and its oil. So the ready temperature applies to the engine node too.
+   */
+  readinessOil: 'oil' | 'engine';
+  /**
+   * The maker's rule for the class (generic, estimate; an aircraft takes its own manual's figures):
+   * preheat is required when the engine has soaked below preheatBelowC for soakHours, and the oil must
+   * be at least minStartOilC for start. A departure that meets both unheated needs no heat.
+   */
+  makerRule: MakerRule;
   oilConsumptionLPerH: number;
+}
+
+export interface MakerRule {
+  preheatBelowC: number;
+  soakHours: number;
+  minStartOilC: number;
 }
 
 /** Oil heat capacity, J/K, at the soak's mean temperature. */
@@ -80,6 +104,11 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     shutdownEngineC: 80, // coolant-cooled mass a little below the oil (estimate)
     // Warmer than the wet-sump floor so the hand-turned oil return goes quickly (estimate).
     readyC: 20,
+    // The engine-side oil is judged on the engine node (readinessOil), so its threshold is readyC;
+    // this figure is the metal's own floor below that (estimate).
+    engineReadyC: 10,
+    readinessOil: 'engine',
+    makerRule: { preheatBelowC: -10, soakHours: 2, minStartOilC: -10 }, // estimate
     oilConsumptionLPerH: 0.03, // estimate
   },
   'ac-wetsump-4': {
@@ -106,6 +135,10 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     shutdownOilC: 80, // estimate: normal cruise oil ~80–95 °C, a little lower after taxi
     shutdownEngineC: 85, // cylinders hotter than the oil, the case cooler; the lump a little above (estimate)
     readyC: 15, // common practice: keep oil at or above about 13–16 °C (55–60 °F)
+    engineReadyC: 5, // estimate: crankcase and cylinders above freezing with margin
+    readinessOil: 'oil',
+    // Estimate (from memory, the usual figure of cold-weather guidance for air-cooled engines: preheat below about −6 °C / 20 °F).
+    makerRule: { preheatBelowC: -6, soakHours: 2, minStartOilC: -6 },
     oilConsumptionLPerH: 0.1, // estimate
   },
   'ac-wetsump-6': {
@@ -131,11 +164,41 @@ export const ENGINE_CLASSES: Record<EngineClassId, EngineClassPreset> = {
     shutdownOilC: 80, // estimate, as the four
     shutdownEngineC: 85, // estimate, as the four
     readyC: 15, // common practice: 13–16 °C (55–60 °F)
+    engineReadyC: 5, // estimate, as the four
+    readinessOil: 'oil',
+    makerRule: { preheatBelowC: -6, soakHours: 2, minStartOilC: -6 }, // estimate, as the four
     oilConsumptionLPerH: 0.15, // estimate
   },
 };
 
 export const ENGINE_CLASS_IDS = Object.keys(ENGINE_CLASSES) as EngineClassId[];
+
+/**
+ * The engine-mass threshold the planner uses for an engine class: the aircraft's own figure, else the
+ * class's (estimate); for a class judged on engine-side oil (dry sump), never below the ready temperature.
+ */
+export function engineThresholdFor(engineClass: string, readyC: number, aircraftEngineReadyC: number | null | undefined): number | undefined {
+  const p = ENGINE_CLASSES[engineClass as EngineClassId];
+  const own = aircraftEngineReadyC ?? p?.engineReadyC;
+  if (own === undefined) return undefined;
+  return p?.readinessOil === 'engine' ? Math.max(own, readyC) : own;
+}
+
+/**
+ * Heater set-ups that mislead: on a class judged on engine-side oil, a tank pad as the only heater
+ * warms the tank while the engine-side oil stays cold. Pure; the board and the aircraft page show it.
+ */
+export function heaterWarnings(engineClass: string, heaters: readonly { kind: string }[]): { code: 'tank-pad-only'; text: string; suggestion: string }[] {
+  const p = ENGINE_CLASSES[engineClass as EngineClassId];
+  if (p?.readinessOil !== 'engine' || !heaters.length || !heaters.every((h) => h.kind === 'oil-pad')) return [];
+  return [
+    {
+      code: 'tank-pad-only',
+      text: 'Dry-sump engine with only an oil-tank pad: the tank warms, the oil on the engine side (crankcase, lines, the gauge) stays cold.',
+      suggestion: 'Add heat on the engine (cylinder bands or engine-side pad, or warm air under a cover) and follow the engine manufacturer’s cold-weather instructions.',
+    },
+  ];
+}
 
 /** The engine part of a simulate request, from a class preset. */
 export function engineFromPreset(

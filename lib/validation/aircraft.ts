@@ -143,6 +143,14 @@ const pilotIdsSchema = z
   .transform((ids) => [...new Set(ids)]);
 
 const shutdownOilSchema = clearableNumberIn('oil temperature at shutdown', -60, 160, ' °C');
+/** The aircraft's engine-mass threshold (crankcase and cylinders), °C; empty: the engine class's estimate. */
+const engineReadySchema = clearableNumberIn('engine-mass ready temperature', -40, 60, ' °C');
+const makerFields = {
+  /** The maker's rule from the aircraft's own manual (empty: the engine class's estimate). */
+  preheatBelowC: clearableNumberIn('preheat-below temperature', -40, 60, ' °C'),
+  preheatSoakHours: clearableNumberIn('soak time', 0, 48, ' h'),
+  minStartOilC: clearableNumberIn('minimum oil temperature for start', -40, 60, ' °C'),
+};
 const shutdownAtSchema = z.preprocess((v) => (v === '' ? null : v), isoInstant('last shutdown time').nullable().optional());
 
 const shelterIdSchema = z.preprocess(
@@ -164,6 +172,8 @@ export const aircraftCreateSchema = z.object({
   pilotIds: pilotIdsSchema.default([]),
   lastShutdownAt: shutdownAtSchema,
   lastShutdownOilC: shutdownOilSchema,
+  engineReadyC: engineReadySchema,
+  ...makerFields,
 });
 export type AircraftCreate = z.infer<typeof aircraftCreateSchema>;
 
@@ -185,6 +195,8 @@ export const aircraftUpdateSchema = z
     pilotIds: pilotIdsSchema.optional(),
     lastShutdownAt: shutdownAtSchema,
     lastShutdownOilC: shutdownOilSchema,
+    engineReadyC: engineReadySchema,
+    ...makerFields,
     /** false: bring an archived aircraft back. */
     archived: z.boolean().optional(),
   })
@@ -201,5 +213,5 @@ export const aircraftListQuery = z.object({
 export function classDefaults(engineClass: string) {
   const p = ENGINE_CLASSES[engineClass as EngineClassId];
   if (!p) return null;
-  return { label: p.label, oilL: p.oilL, readyC: p.readyC, shutdownOilC: p.shutdownOilC, heaters: p.heaters };
+  return { label: p.label, oilL: p.oilL, readyC: p.readyC, engineReadyC: p.engineReadyC, readinessOil: p.readinessOil, shutdownOilC: p.shutdownOilC, heaters: p.heaters };
 }

@@ -35,7 +35,18 @@ export const departAtSchema = text({ error: 'Enter the departure date and time.'
     return z.NEVER;
   });
 
-const readyC = optionalNumberIn('ready temperature', -10, 100, ' °C');
+const readyC = optionalNumberIn('ready temperature', -40, 60, ' °C');
+/** The start window, minutes: the oil is at ready from departure through it, the heater on until just before start. */
+export const MAX_HOLD_MINUTES = 120;
+const holdMinutes = z.preprocess(
+  toNumberInput,
+  z
+    .number({ error: 'Enter the start window in whole minutes, 0 to 120.' })
+    .int('Enter the start window in whole minutes, 0 to 120.')
+    .min(0, 'The start window cannot be negative.')
+    .max(MAX_HOLD_MINUTES, `The start window is at most ${MAX_HOLD_MINUTES} minutes.`)
+    .optional(),
+);
 const notes = multilineText({ error: 'Notes are text.' }).trim().max(500, 'Use at most 500 characters.');
 
 export const departureCreateSchema = z.object({
@@ -43,10 +54,15 @@ export const departureCreateSchema = z.object({
   /** Who flies; defaults to the person booking. Only roles that book for anyone may name someone else. */
   pilotId: z.preprocess(toNumberInput, z.number({ error: 'Choose a pilot.' }).int().positive().optional()),
   departAt: departAtSchema,
-  /** Oil temperature needed at departure, °C; defaults to the engine class's, may only be raised. */
+  /**
+   * Oil temperature needed at departure, °C; defaults to the engine class's. Raised freely; an operator
+   * may lower it to the aircraft's own figure (the maker's minimum oil for start), recorded with who and when.
+   */
   readyC,
   /** Optional overnight floor, °C: the oil is kept at or above it all night. */
   floorC: clearableNumberIn('overnight floor', -40, 60, ' °C'),
+  /** Start window, minutes (default: the organization's, 30). */
+  holdMinutes,
   notes: notes.default(''),
 });
 export type DepartureCreate = z.infer<typeof departureCreateSchema>;
@@ -57,6 +73,7 @@ export const departureUpdateSchema = z
     departAt: departAtSchema.optional(),
     readyC,
     floorC: clearableNumberIn('overnight floor', -40, 60, ' °C'),
+    holdMinutes,
     notes: notes.optional(),
   })
   .strict()

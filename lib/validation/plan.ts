@@ -47,6 +47,10 @@ export const planSchema = z.strictObject({
   correlationHours: finiteNumber(0, 1000, 'a number of hours').optional(),
   /** Plan for this chance of being ready (0.5–0.999) instead of the forecast's best guess. */
   targetProbability: finiteNumber(0.5, 0.999, 'a probability').optional(),
+  /** The start window after departure, minutes (default 0: judged at departure only; the app passes its setting). */
+  holdMinutes: finiteNumber(0, 240, 'a number of minutes').optional(),
+  /** The engine-mass threshold, °C (needs an "engine" node): readiness needs it too over the window. */
+  engineReadyC: temp.optional(),
 }, {
   error: (iss) =>
     iss.input === undefined ? 'Required: { departure, readyC, heater: { node, powerW }, mode }.' : 'Must be an object { departure, readyC, heater, mode, … }.',
@@ -68,6 +72,9 @@ export const planInputSchema = simulationInputSchema
     if (dep < start || dep > end) issue(['departure'], `Must lie within the run, from start (${v.start}) to end (${v.end}).`);
     if (p.heater.node === 'engine' && !v.engine.nodes.some((n) => n.name === 'engine')) {
       issue(['heater', 'node'], 'No "engine" node in engine.nodes: the one-node form heats "oil".');
+    }
+    if (p.engineReadyC !== undefined && !v.engine.nodes.some((n) => n.name === 'engine')) {
+      issue(['engineReadyC'], 'No "engine" node in engine.nodes: an engine-mass threshold needs the two-node form.');
     }
     const now = p.now !== undefined ? ms(p.now) : undefined;
     if (now !== undefined && now > dep) issue(['now'], 'Must not be after departure: there is nothing left to plan.');

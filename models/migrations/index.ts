@@ -7,6 +7,7 @@ import * as m005 from './005-alerts-mail';
 import * as m006 from './006-plan-unique';
 import * as m007 from './007-session-version';
 import * as m008 from './008-rate-limits';
+import * as m008w from './008-start-window';
 import * as m009 from './009-outcomes';
 import * as m010 from './010-devices';
 
@@ -27,6 +28,7 @@ export const migrations: Migration[] = [
   { name: '006-plan-unique', ...m006 },
   { name: '007-session-version', ...m007 },
   { name: '008-rate-limits', ...m008 },
+  { name: '008-start-window', ...m008w },
   { name: '009-outcomes', ...m009 },
   { name: '010-devices', ...m010 },
 ];

@@ -155,6 +155,8 @@ describe('switch-on reminder', () => {
     const { plansBetween } = await import('@/lib/data/plans');
     const routa = (await models.Aircraft.findOne({ where: { registration: 'Q-ROUTA' } }))!;
     await models.Heater.update({ control: 'manual', slotMinutes: 30 }, { where: { aircraftId: routa.id } });
+    // Its own manual asks for warm oil at start, so the mild heated hangar still needs heat (the maker's rule).
+    await routa.update({ minStartOilC: 15 });
     const org = (await models.Organization.findOne({ where: { name: 'Frostvale Flying Club' } }))!;
     // The plan as it stands 20 minutes before its switch-on time (the forecast is refreshed at that time).
     const planAt = async (now: Date) =>

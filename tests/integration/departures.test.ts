@@ -142,19 +142,74 @@ describe('booking', () => {
     expect(other.body.fields[0].field).toBe('pilotId');
   });
 
-  it('the ready temperature may be raised but not lowered below the class default (422 naming readyC); the floor may not exceed it', async () => {
+  it('the ready temperature may be raised but not lowered below the aircraft’s figure (422 naming readyC); the floor may not exceed it', async () => {
     await signInAs(DEMO.operator);
     const id = await aircraftId('Q-ROUTA');
-    const low = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(13)}T08:00`, readyC: 10 } });
+    // Below the aircraft's own figure (the maker's minimum oil for start, −6 °C by the class's estimate) even an operator may not go.
+    const low = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(13)}T08:00`, readyC: -10 } });
     expect(low.status).toBe(422);
     expect(low.body.fields[0].field).toBe('readyC');
-    expect(low.body.fields[0].message).toMatch(/15 °C/);
+    expect(low.body.fields[0].message).toMatch(/\u22126 °C/);
     const floor = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(13)}T08:00`, readyC: 25, floorC: 30 } });
     expect(floor.status).toBe(422);
     expect(floor.body.fields[0].field).toBe('floorC');
     const ok = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(13)}T08:00`, readyC: 25, floorC: 5 } });
     expect(ok.status).toBe(201);
     expect(ok.body.departure).toMatchObject({ readyC: 25, floorC: 5, classReadyC: 15 });
+  });
+
+  it('the start window: new departures take the organization default (30 min), 0–120 via POST and PATCH, else 422 naming holdMinutes', async () => {
+    await signInAs(DEMO.operator);
+    const id = await aircraftId('Q-ROUTA');
+    const made = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(15)}T08:00` } });
+    expect(made.status).toBe(201);
+    expect(made.body.departure.holdMinutes).toBe(30);
+    const depId = made.body.departure.id;
+    for (const bad of [121, -1, 2.5, 'x']) {
+      const r = await call(one.PATCH as never, { method: 'PATCH', body: { holdMinutes: bad }, params: { id: String(depId) } });
+      expect(r.status).toBe(422);
+      expect(r.body.fields[0].field).toBe('holdMinutes');
+    }
+    const zero = await call(one.PATCH as never, { method: 'PATCH', body: { holdMinutes: 0 }, params: { id: String(depId) } });
+    expect(zero.status).toBe(200);
+    expect(zero.body.departure.holdMinutes).toBe(0);
+    const max = await call(one.PATCH as never, { method: 'PATCH', body: { holdMinutes: '120' }, params: { id: String(depId) } });
+    expect(max.body.departure.holdMinutes).toBe(120);
+    const own = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(17)}T08:00`, holdMinutes: 45 } });
+    expect(own.body.departure.holdMinutes).toBe(45);
+    const tooLong = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(19)}T08:00`, holdMinutes: 500 } });
+    expect(tooLong.status).toBe(422);
+    expect(tooLong.body.fields[0].field).toBe('holdMinutes');
+  });
+
+  it("an operator may lower the ready temperature to the aircraft's figure, recorded (who, when); a pilot may not; outside −40…60 °C is 422", async () => {
+    await signInAs(DEMO.operator);
+    const id = await aircraftId('Q-ROUTA');
+    const made = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(21)}T08:00` } });
+    expect(made.status).toBe(201);
+    const depId = String(made.body.departure.id);
+    // The class's rule minimum (estimate) is the aircraft's figure until its own manual's is entered.
+    expect(made.body.departure.lowestReadyC).toBe(-6);
+    for (const bad of [-41, 61]) {
+      const r = await call(one.PATCH as never, { method: 'PATCH', body: { readyC: bad }, params: { id: depId } });
+      expect(r.status).toBe(422);
+      expect(r.body.fields[0].field).toBe('readyC');
+    }
+    const below = await call(one.PATCH as never, { method: 'PATCH', body: { readyC: -10 }, params: { id: depId } });
+    expect(below.status).toBe(422);
+    expect(below.body.fields[0].message).toMatch(/aircraft’s figure/);
+    const lowered = await call(one.PATCH as never, { method: 'PATCH', body: { readyC: -6 }, params: { id: depId } });
+    expect(lowered.status).toBe(200);
+    expect(lowered.body.departure.readyC).toBe(-6);
+    expect(lowered.body.departure.readyLowered.by).toBeTruthy();
+    expect(Date.parse(lowered.body.departure.readyLowered.at)).toBeGreaterThan(Date.now() - 60_000);
+    const back = await call(one.PATCH as never, { method: 'PATCH', body: { readyC: 20 }, params: { id: depId } });
+    expect(back.body.departure.readyLowered).toBeNull();
+    await signInAs(DEMO.pilot);
+    const pilotMine = await call(list.POST as never, { method: 'POST', body: { aircraftId: id, departAt: `${localDay(23)}T08:00`, readyC: 0 } });
+    expect(pilotMine.status).toBe(422);
+    expect(pilotMine.body.fields[0].field).toBe('readyC');
+    expect(pilotMine.body.fields[0].message).toMatch(/an operator may lower/);
   });
 
   it('bad input is 422 naming the field; a time in the past or too far ahead is 422 on departAt', async () => {

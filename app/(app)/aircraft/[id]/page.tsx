@@ -61,6 +61,11 @@ export default async function Page({ params, searchParams }: { params: Promise<{
       <div className="mb-4 space-y-3">
         <AircraftFacts a={a} volumeUnit={user.volumeUnit} />
         {added ? <Notice title="Aircraft added">{a.registration} is in the fleet. Check its heaters and pilots below.</Notice> : null}
+        {a.heaterWarnings.map((w) => (
+          <Notice key={w.code} tone="caution" title="Heater warning">
+            {w.text} Suggestion: {w.suggestion}
+          </Notice>
+        ))}
         {a.archived ? <Notice tone="caution" title="Archived">This aircraft is archived: it is not planned and cannot be booked.</Notice> : null}
       </div>
       <nav aria-label="Aircraft sections" className="mb-4 flex gap-2 border-b border-slate-200 dark:border-slate-800">
