@@ -51,7 +51,8 @@ const schema = z.object({
   SIGNIN_MAX_PER_ADDRESS: z.coerce.number().int().min(1).default(20),
   DB_LOG: bool,
   // Connection pool for DATABASE_URL (PostgreSQL); SQLite keeps its own single-file connections.
-  DB_POOL_MAX: z.coerce.number().int().min(1).max(500).default(10),
+  // At least 2: migrate() holds one connection for its lock while the migrations use another.
+  DB_POOL_MAX: z.coerce.number().int().min(2).max(500).default(10),
   DB_POOL_MIN: z.coerce.number().int().min(0).max(500).default(0),
   DB_POOL_IDLE_MS: z.coerce.number().int().min(100).max(3_600_000).default(10_000),
   DB_POOL_ACQUIRE_MS: z.coerce.number().int().min(100).max(600_000).default(60_000),

@@ -104,9 +104,31 @@ export function migrator() {
   });
 }
 
-/** Applies every pending migration; a second run applies nothing. Returns the names applied. */
-export async function migrate(): Promise<string[]> {
+/** Key of the PostgreSQL advisory lock that lets one instance at a time prepare the database. */
+const STARTUP_LOCK = 7_231_406;
+
+/**
+ * Runs `fn` while holding the database's start-up lock (PostgreSQL: a transaction-scoped advisory lock
+ * on a connection of its own; SQLite: one process per file, no lock needed). Instances starting together
+ * take turns: the first migrates (and seeds), the others then find nothing to do. `fn` must not take
+ * the lock again.
+ */
+export async function withStartupLock<T>(fn: () => Promise<T>): Promise<T> {
+  const { sequelize } = db();
+  if (sequelize.getDialect() !== 'postgres') return fn();
+  return sequelize.transaction(async (t) => {
+    await sequelize.query(`SELECT pg_advisory_xact_lock(${STARTUP_LOCK})`, { transaction: t });
+    return fn();
+  });
+}
+
+/** Applies every pending migration without taking the start-up lock (inside withStartupLock()). */
+export async function applyMigrations(): Promise<string[]> {
   db();
-  const done = await migrator().up();
-  return done.map((m) => m.name);
+  return (await migrator().up()).map((m) => m.name);
+}
+
+/** Applies every pending migration, one instance at a time; a second run applies nothing. Returns the names applied. */
+export async function migrate(): Promise<string[]> {
+  return withStartupLock(applyMigrations);
 }

@@ -1,5 +1,5 @@
 // Run by npm start and npm run dev: migrate, then seed the demo when the database has no organization yet.
-import { migrate, closeSequelize, db } from '@/models';
+import { applyMigrations, closeSequelize, db, withStartupLock } from '@/models';
 import fs from 'node:fs';
 import { seedDemo } from '@/lib/seed/demo';
 import { env, SECRET_FILE } from '@/lib/env';
@@ -10,13 +10,16 @@ async function main() {
   const hadSecretFile = fs.existsSync(SECRET_FILE);
   env();
   if (!process.env.NEXTAUTH_SECRET && !hadSecretFile) console.log(`[thawline] NEXTAUTH_SECRET not set: generated a random one in ${SECRET_FILE}`);
-  const applied = await migrate();
-  if (applied.length) console.log(`[thawline] migrations applied: ${applied.join(', ')}`);
-  const { Organization } = db();
-  if ((await Organization.count()) === 0) {
-    const summary = await seedDemo();
-    console.log(`[thawline] demo data seeded: ${summary}`);
-  }
+  // Several instances starting together on one PostgreSQL take turns, so one migrates and seeds.
+  await withStartupLock(async () => {
+    const applied = await applyMigrations();
+    if (applied.length) console.log(`[thawline] migrations applied: ${applied.join(', ')}`);
+    const { Organization } = db();
+    if ((await Organization.count()) === 0) {
+      const summary = await seedDemo();
+      console.log(`[thawline] demo data seeded: ${summary}`);
+    }
+  });
   await closeSequelize();
 }
 

@@ -40,10 +40,12 @@ const g = globalThis as unknown as { __thawlineLimiters?: Limiters };
  */
 function make(keyPrefix: string, points: number, duration: number): Limiter {
   const e = env();
+  // The table comes from migration 008-rate-limits (tableCreated): the store's own creation at first use
+  // raced between instances starting together; waiting on `ready` stays for a store that is not ready.
   if (!(e.DATABASE_URL && getSequelize().getDialect() === 'postgres')) return new RateLimiterMemory({ keyPrefix, points, duration });
   let limiter: RateLimiterPostgres | undefined;
   const ready = new Promise<RateLimiterPostgres>((resolve, reject) => {
-    limiter = new RateLimiterPostgres({ storeClient: getSequelize(), storeType: 'sequelize', tableName: 'rate_limits', keyPrefix, points, duration }, (err?: unknown) =>
+    limiter = new RateLimiterPostgres({ storeClient: getSequelize(), storeType: 'sequelize', tableName: 'rate_limits', tableCreated: true, keyPrefix, points, duration }, (err?: unknown) =>
       err ? reject(err) : resolve(limiter!),
     );
   });

@@ -36,9 +36,25 @@ export function isValidTimeZone(zone: string): boolean {
   }
 }
 
+// Intl's formatToParts is slow next to everything else a board read does, and the same instants (forecast
+// hours, departures, slot edges) recur for every aircraft of an airfield: remember each answer. The
+// result depends only on the whole second, so the memo is exact; it is dropped whole when it grows large.
+const offsetMemo = new Map<string, number>();
+const OFFSET_MEMO_MAX = 100_000;
+
 /** The zone's offset from UTC, in seconds, at the instant `ms` (epoch milliseconds). */
 export function offsetSecondsAt(zone: string, ms: number): number {
   if (isUtcName(zone)) return 0;
+  const key = `${zone}|${Math.floor(ms / 1000)}`;
+  const known = offsetMemo.get(key);
+  if (known !== undefined) return known;
+  const offset = computeOffsetSeconds(zone, ms);
+  if (offsetMemo.size >= OFFSET_MEMO_MAX) offsetMemo.clear();
+  offsetMemo.set(key, offset);
+  return offset;
+}
+
+function computeOffsetSeconds(zone: string, ms: number): number {
   const parts = formatterFor(zone).formatToParts(new Date(ms));
   const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
   const wall = Date.UTC(get('year'), get('month') - 1, get('day'), get('hour'), get('minute'), get('second'));

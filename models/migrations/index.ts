@@ -6,6 +6,7 @@ import * as m004 from './004-logs-and-oil';
 import * as m005 from './005-alerts-mail';
 import * as m006 from './006-plan-unique';
 import * as m007 from './007-session-version';
+import * as m008 from './008-rate-limits';
 import * as m009 from './009-outcomes';
 
 export interface Migration {
@@ -24,5 +25,6 @@ export const migrations: Migration[] = [
   { name: '005-alerts-mail', ...m005 },
   { name: '006-plan-unique', ...m006 },
   { name: '007-session-version', ...m007 },
+  { name: '008-rate-limits', ...m008 },
   { name: '009-outcomes', ...m009 },
 ];
