@@ -47,6 +47,9 @@ const schema = z.object({
   SMTP_URL: z.string().url().optional().or(z.literal('').transform(() => undefined)),
   MAIL_FROM: z.string().min(3).default('Thawline <no-reply@thawline.test>'),
   SMTP_CAPTURE_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  // MQTT for heater relays and probes: a real broker, else the embedded one on 127.0.0.1:MQTT_BROKER_PORT.
+  MQTT_URL: z.string().url().optional().or(z.literal('').transform(() => undefined)),
+  MQTT_BROKER_PORT: z.coerce.number().int().min(0).max(65535).default(1883),
   SIGNIN_MAX_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
   SIGNIN_MAX_PER_ADDRESS: z.coerce.number().int().min(1).default(20),
   DB_LOG: bool,

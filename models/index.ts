@@ -13,6 +13,9 @@ import { OilChange, initOilChange } from './OilChange';
 import { Heater, initHeater } from './Heater';
 import { AircraftPilot, initAircraftPilot } from './AircraftPilot';
 import { Tariff, initTariff } from './Tariff';
+import { Device, initDevice } from './Device';
+import { DeviceEvent, initDeviceEvent } from './DeviceEvent';
+import { DeviceReading, initDeviceReading } from './DeviceReading';
 import { Departure, initDeparture } from './Departure';
 import { HeatPlan, initHeatPlan } from './HeatPlan';
 import { CalendarFeed, initCalendarFeed } from './CalendarFeed';
@@ -28,6 +31,7 @@ import { guardWrites } from './transaction';
 
 export { Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange };
 export { Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome };
+export { Device, DeviceEvent, DeviceReading };
 export { getSequelize, closeSequelize } from './db';
 
 const g = globalThis as unknown as { __thawlineModelsReady?: boolean };
@@ -60,6 +64,9 @@ export function db() {
     initLease(sequelize);
     initCapturedMail(sequelize);
     initDepartureOutcome(sequelize);
+    initDevice(sequelize);
+    initDeviceEvent(sequelize);
+    initDeviceReading(sequelize);
 
     Organization.hasMany(User, { foreignKey: 'organizationId' });
     User.belongsTo(Organization, { foreignKey: 'organizationId' });
@@ -91,7 +98,7 @@ export function db() {
     DepartureOutcome.belongsTo(Departure, { foreignKey: 'departureId', as: 'departure' });
     g.__thawlineModelsReady = true;
   }
-  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome };
+  return { sequelize, Organization, User, Airfield, Shelter, Aircraft, Forecast, Heater, AircraftPilot, Tariff, Departure, HeatPlan, CalendarFeed, TempLog, ProfileRevision, OilCheck, OilChange, Alert, AlertPreference, OutboxMessage, Token, Lease, CapturedMail, DepartureOutcome, Device, DeviceEvent, DeviceReading };
 }
 
 export function migrator() {

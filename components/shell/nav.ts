@@ -22,6 +22,7 @@ export const NAV: NavItem[] = [
   { href: '/oil-log', label: 'Oil log', icon: 'oil', permission: 'oil-log:write' },
   { href: '/season', label: 'Season report', icon: 'report', permission: 'plans:manage' },
   { href: '/calibration', label: 'Fit from log', icon: 'curve', permission: 'aircraft:edit' },
+  { href: '/devices', label: 'Devices', icon: 'settings', permission: 'aircraft:edit' },
   { href: '/alerts', label: 'Alerts', icon: 'alert', permission: 'org:read', primary: true, badge: 'alerts' },
   { href: '/admin/users', label: 'Users', icon: 'users', permission: 'users:manage' },
   { href: '/mail', label: 'Mail capture', icon: 'mail', permission: 'mail:view' },

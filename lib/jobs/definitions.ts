@@ -9,7 +9,7 @@ import { evaluateAlerts, evaluateColdNight } from '@/lib/alerts/evaluate';
 import { deliverDue } from '@/lib/mail/deliver';
 import { logSkipped } from '@/lib/log';
 
-export type JobName = 'forecast-refresh' | 'plan-recompute' | 'alert-evaluation' | 'cold-night-notice' | 'mail-delivery';
+export type JobName = 'forecast-refresh' | 'plan-recompute' | 'alert-evaluation' | 'cold-night-notice' | 'mail-delivery' | 'relay-dispatch';
 
 export interface JobContext {
   now: Date;
@@ -72,4 +72,17 @@ export const JOBS: JobDefinition[] = [
   { name: 'alert-evaluation', pattern: '*/10 * * * *', ttlMs: 25 * MIN, run: ({ now }) => evaluateAlerts({ now }) },
   { name: 'cold-night-notice', pattern: '*/5 * * * *', ttlMs: 12 * MIN, run: ({ now }) => evaluateColdNight({ now }) },
   { name: 'mail-delivery', pattern: '* * * * *', ttlMs: 3 * MIN, run: ({ now, holder }) => deliverDue({ now, holder }) },
+  {
+    // Relay commands from confirmed plans through the embedded broker of this process (lib/devices).
+    name: 'relay-dispatch',
+    pattern: '* * * * *',
+    ttlMs: 3 * MIN,
+    async run({ now }) {
+      const { runningBroker } = await import('@/lib/devices/service');
+      const broker = await runningBroker();
+      if (!broker) return { broker: 'not running' };
+      const { dispatchRelayCommands } = await import('@/lib/devices/dispatch');
+      return dispatchRelayCommands({ now, publish: (topic, payload, opts) => broker.publish(topic, payload, opts) });
+    },
+  },
 ];

@@ -23,6 +23,8 @@ interface Background {
   scheduler: Scheduler | null;
   capture: PartStatus;
   jobs: PartStatus;
+  /** The embedded MQTT broker for relays and probes ('off' with MQTT_URL set). */
+  broker: PartStatus;
 }
 
 const g = globalThis as unknown as { __thawlineBackground?: Promise<Background>; __thawlineBackgroundNow?: Background };
@@ -36,7 +38,7 @@ function reasonOf(err: unknown): string {
 
 async function start(opts: { runNow: boolean }): Promise<Background> {
   const e = env();
-  const b: Background = { scheduler: null, capture: { state: e.SMTP_URL ? 'off' : 'starting' }, jobs: { state: 'starting' } };
+  const b: Background = { scheduler: null, capture: { state: e.SMTP_URL ? 'off' : 'starting' }, jobs: { state: 'starting' }, broker: { state: e.MQTT_URL ? 'off' : 'starting' } };
   g.__thawlineBackgroundNow = b;
   if (!e.SMTP_URL) {
     try {
@@ -48,6 +50,18 @@ async function start(opts: { runNow: boolean }): Promise<Background> {
       console.error(
         `[thawline] local mail capture did not start on 127.0.0.1:${e.SMTP_CAPTURE_PORT} (${b.capture.reason}); the jobs run, and mail goes to whatever listens there`,
       );
+    }
+  }
+  if (!e.MQTT_URL) {
+    // Like the capture: a broker that cannot listen is reported and the jobs still run.
+    try {
+      const { ensureBroker } = await import('@/lib/devices/service');
+      const broker = await ensureBroker(e.MQTT_BROKER_PORT);
+      b.broker = { state: 'running', port: broker.port };
+      console.log(`[thawline] embedded MQTT broker listening on 127.0.0.1:${broker.port}`);
+    } catch (err) {
+      b.broker = { state: 'failed', reason: reasonOf(err), port: e.MQTT_BROKER_PORT };
+      console.error(`[thawline] embedded MQTT broker did not start on 127.0.0.1:${e.MQTT_BROKER_PORT} (${b.broker.reason}); the jobs run without it`);
     }
   }
   try {
@@ -78,6 +92,8 @@ export async function stopBackground() {
   await b?.scheduler?.stop();
   const { stopCapture } = await import('@/lib/mail/capture');
   await stopCapture();
+  const { stopBroker } = await import('@/lib/devices/service');
+  await stopBroker();
 }
 
 /** What this process's background work is doing, for /api/health. */

@@ -8,6 +8,7 @@ import * as m006 from './006-plan-unique';
 import * as m007 from './007-session-version';
 import * as m008 from './008-rate-limits';
 import * as m009 from './009-outcomes';
+import * as m010 from './010-devices';
 
 export interface Migration {
   name: string;
@@ -27,4 +28,5 @@ export const migrations: Migration[] = [
   { name: '007-session-version', ...m007 },
   { name: '008-rate-limits', ...m008 },
   { name: '009-outcomes', ...m009 },
+  { name: '010-devices', ...m010 },
 ];
