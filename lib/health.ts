@@ -24,6 +24,8 @@ export interface Health {
   fakes: {
     forecast: { local: boolean; scenario?: string; fault?: string };
     mail: { local: boolean; capture: PartStatus };
+    /** The embedded MQTT broker for relays and probes (local: MQTT_URL not set). */
+    mqtt: { local: boolean; broker: PartStatus };
   };
 }
 
@@ -56,6 +58,7 @@ export async function health(): Promise<{ httpStatus: number; body: Health }> {
     fakes: {
       forecast: e.FORECAST_BASE_URL ? { local: false } : { local: true, scenario: e.FAKE_FORECAST_SCENARIO, fault: e.FAKE_FORECAST_FAULT },
       mail: { local: !e.SMTP_URL, capture: bg.capture },
+      mqtt: { local: !e.MQTT_URL, broker: bg.broker },
     },
   };
   try {
@@ -84,6 +87,6 @@ export async function health(): Promise<{ httpStatus: number; body: Health }> {
       lastAttemptHere: attempt ? { at: attempt.at.toISOString(), outcome: attempt.outcome } : null,
     };
   });
-  if (bg.jobs.state === 'failed' || bg.capture.state === 'failed') body.status = 'degraded';
+  if (bg.jobs.state === 'failed' || bg.capture.state === 'failed' || bg.broker.state === 'failed') body.status = 'degraded';
   return { httpStatus: 200, body };
 }

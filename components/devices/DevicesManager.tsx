@@ -67,6 +67,13 @@ export function DevicesManager({ initial, aircraft, shelters }: { initial: Devic
     void mutate();
   }
 
+  async function override(d: DeviceRow, body: { action: 'on'; minutes: number } | { action: 'off' }) {
+    const r = await sendJson<{ refused: string[] }>(`/api/devices/${d.id}/override`, 'POST', body);
+    if (!r.ok) return setStatus(r.message);
+    const refused = r.data.refused.length ? ` Interlock: ${[...new Set(r.data.refused)].join(', ')}.` : '';
+    setStatus(`${d.label}: ${body.action === 'on' ? `on for ${body.minutes} minutes` : 'off'} sent.${refused}`);
+  }
+
   async function remove(d: DeviceRow) {
     if (!(await confirm({ title: `Remove ${d.label}?`, body: 'Its credentials stop working; a relay then stays off once its last schedule expires.', confirmLabel: 'Remove device', tone: 'danger' }))) return;
     const r = await sendJson(`/api/devices/${d.id}`, 'DELETE');
@@ -93,7 +100,15 @@ export function DevicesManager({ initial, aircraft, shelters }: { initial: Devic
                   <p className="break-all font-mono text-xs text-slate-500">{d.topicPrefix}</p>
                   <p className="text-xs text-slate-500">{d.lastSeenAt ? `Last heard ${new Date(d.lastSeenAt).toLocaleString()}` : 'Not connected yet'}</p>
                 </div>
-                <Button variant="danger" onClick={() => void remove(d)}>Remove</Button>
+                <div className="flex flex-wrap gap-2">
+                  {d.kind === 'relay' ? (
+                    <>
+                      <Button variant="heat" onClick={() => void override(d, { action: 'on', minutes: 30 })}>On for 30 min</Button>
+                      <Button variant="secondary" onClick={() => void override(d, { action: 'off' })}>Off now</Button>
+                    </>
+                  ) : null}
+                  <Button variant="danger" onClick={() => void remove(d)}>Remove</Button>
+                </div>
               </li>
             ))}
           </ul>

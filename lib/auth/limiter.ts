@@ -46,7 +46,8 @@ function make(keyPrefix: string, points: number, duration: number): Limiter {
   let limiter: RateLimiterPostgres | undefined;
   const ready = new Promise<RateLimiterPostgres>((resolve, reject) => {
     limiter = new RateLimiterPostgres({ storeClient: getSequelize(), storeType: 'sequelize', tableName: 'rate_limits', tableCreated: true, keyPrefix, points, duration }, (err?: unknown) =>
-      err ? reject(err) : resolve(limiter!),
+      // With tableCreated the store calls back inside its constructor, before `limiter` is assigned.
+      err ? reject(err) : queueMicrotask(() => resolve(limiter!)),
     );
   });
   ready.catch(() => {});

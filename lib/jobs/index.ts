@@ -97,14 +97,14 @@ export async function stopBackground() {
 }
 
 /** What this process's background work is doing, for /api/health. */
-export function backgroundStatus(): { jobs: PartStatus; capture: PartStatus; holder: string | null; scheduler: Scheduler | null } {
+export function backgroundStatus(): { jobs: PartStatus; capture: PartStatus; broker: PartStatus; holder: string | null; scheduler: Scheduler | null } {
   const e = env();
   const b = g.__thawlineBackgroundNow;
   if (!b) {
     const off: PartStatus = { state: 'off' };
-    return { jobs: off, capture: e.SMTP_URL ? off : { state: 'off', port: e.SMTP_CAPTURE_PORT }, holder: null, scheduler: null };
+    return { jobs: off, capture: e.SMTP_URL ? off : { state: 'off', port: e.SMTP_CAPTURE_PORT }, broker: e.MQTT_URL ? off : { state: 'off', port: e.MQTT_BROKER_PORT }, holder: null, scheduler: null };
   }
-  return { jobs: b.jobs, capture: b.capture, holder: b.scheduler?.holder ?? null, scheduler: b.scheduler };
+  return { jobs: b.jobs, capture: b.capture, broker: b.broker, holder: b.scheduler?.holder ?? null, scheduler: b.scheduler };
 }
 
 /** The running scheduler of this process, if any (route handlers use it to deliver at once). */

@@ -20,3 +20,10 @@ export const deviceCreateSchema = z
     if (!needsShelter && !v.aircraftId) ctx.addIssue({ code: 'custom', path: ['aircraftId'], message: 'Choose the aircraft the device is fitted to.' });
   });
 export type DeviceCreateInput = z.infer<typeof deviceCreateSchema>;
+
+/** Manual override of a relay: on now for N minutes, or off now. */
+export const deviceOverrideSchema = z.discriminatedUnion('action', [
+  z.object({ action: z.literal('on'), minutes: z.number({ message: 'Give the minutes.' }).int('Whole minutes.').min(1, 'At least 1 minute.').max(12 * 60, 'At most 12 hours.') }),
+  z.object({ action: z.literal('off') }),
+], { message: 'Choose on or off.' });
+export type DeviceOverrideInput = z.infer<typeof deviceOverrideSchema>;

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import mqtt from 'mqtt';
-import { DEMO, freshDatabase } from './helpers';
+import { call, DEMO, freshDatabase, signInAs } from './helpers';
 import type { EmbeddedBroker } from '@/lib/devices/broker';
 
 let models: ReturnType<Awaited<typeof import('@/models')>['db']>;
@@ -90,5 +90,27 @@ describe('relay commands from a confirmed plan (embedded broker, real client)', 
     expect(alerts.length).toBeGreaterThan(0);
     expect(alerts[0].title).toContain('Relay B');
     expect((await models.DeviceEvent.findAll({ where: { deviceId: silent.device.id, kind: 'timeout' } })).length).toBe(1);
+  });
+
+  it('manual override: on now for N minutes through the interlocks, recorded with who asked; combustion heaters refused', async () => {
+    const route = await import('@/app/api/devices/[id]/override/route');
+    const op = await signInAs(DEMO.operator);
+    const relay = (await models.Device.findOne({ where: { organizationId: op.organizationId, kind: 'relay', label: 'Relay A' } }))!;
+    const bad = await call(route.POST as never, { method: 'POST', params: { id: String(relay.id) }, body: { action: 'on' } });
+    expect(bad.status).toBe(422);
+    expect((bad.body as { fields: { field: string }[] }).fields.map((f) => f.field)).toEqual(['minutes']);
+    const ok = await call(route.POST as never, { method: 'POST', params: { id: String(relay.id) }, body: { action: 'on', minutes: 30 } });
+    expect(ok.status).toBe(200);
+    const cmd = (ok.body as { command: { windows: { from: string; until: string }[] } }).command;
+    expect(Date.parse(cmd.windows[0].until) - Date.parse(cmd.windows[0].from)).toBe(30 * 60_000);
+    const events = await models.DeviceEvent.findAll({ where: { deviceId: relay.id, kind: 'override' } });
+    expect(events.map((e) => e.userId)).toEqual([op.id]);
+
+    await models.Heater.update({ kind: 'forced-air-propane' }, { where: { aircraftId: relay.aircraftId! } });
+    const refused = await call(route.POST as never, { method: 'POST', params: { id: String(relay.id) }, body: { action: 'on', minutes: 30 } });
+    expect((refused.body as { refused: string[]; command: { windows: unknown[] } })).toMatchObject({ refused: ['combustion-heater'], command: { windows: [] } });
+
+    await signInAs(DEMO.otherManager);
+    expect((await call(route.POST as never, { method: 'POST', params: { id: String(relay.id) }, body: { action: 'off' } })).status).toBe(404);
   });
 });

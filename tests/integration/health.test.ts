@@ -36,9 +36,11 @@ describe('/api/health', () => {
     expect(r.body.database.dialect).toBe(process.env.TEST_DATABASE_URL ? 'postgres' : 'sqlite');
     // Tests run with THAWLINE_JOBS=off: this instance runs no jobs, and every job is listed.
     expect(r.body.jobs).toMatchObject({ enabled: false, thisInstance: 'off' });
-    expect(r.body.jobs.each.map((j: { name: string }) => j.name).sort()).toEqual(['alert-evaluation', 'cold-night-notice', 'forecast-refresh', 'mail-delivery', 'plan-recompute']);
+    const { JOBS } = await import('@/lib/jobs/definitions');
+    expect(r.body.jobs.each.map((j: { name: string }) => j.name).sort()).toEqual(JOBS.map((j) => j.name).sort());
     expect(r.body.fakes.forecast).toMatchObject({ local: true });
     expect(r.body.fakes.mail).toMatchObject({ local: true, capture: { state: 'off' } });
+    expect(r.body.fakes.mqtt).toMatchObject({ local: true, broker: { state: 'off' } });
     // Nothing in it names a host, a process or a statement.
     expect(r.text).not.toMatch(/SELECT|holder|pid|hostname/i);
   });
@@ -70,6 +72,7 @@ describe('/api/health', () => {
       await new Promise((r) => blocker.close(r));
       process.env.THAWLINE_JOBS = saved.jobs;
       process.env.SMTP_CAPTURE_PORT = saved.port;
+      delete process.env.MQTT_BROKER_PORT;
       const { resetEnvCache } = await import('@/lib/env');
       resetEnvCache();
     });
@@ -77,6 +80,7 @@ describe('/api/health', () => {
     it('stops only the capture: the scheduler starts, runs its jobs, and health says which part failed', async () => {
       process.env.THAWLINE_JOBS = 'on';
       process.env.SMTP_CAPTURE_PORT = String(port);
+      process.env.MQTT_BROKER_PORT = '0';
       const { resetEnvCache } = await import('@/lib/env');
       resetEnvCache();
       const { startBackground } = await import('@/lib/jobs');
@@ -99,6 +103,46 @@ describe('/api/health', () => {
       const notice = r.body.jobs.each.find((j: { name: string }) => j.name === 'cold-night-notice');
       expect(notice).toMatchObject({ heldByThisInstance: true, runs: 1, lastAttemptHere: { outcome: 'ran' } });
       expect(Date.parse(notice.lastRunAt)).toBeGreaterThan(Date.now() - 60_000);
+    });
+  });
+
+  describe('a taken MQTT broker port', () => {
+    let blocker: net.Server;
+    let port: number;
+    beforeAll(async () => {
+      blocker = net.createServer();
+      await new Promise<void>((r) => blocker.listen(0, '127.0.0.1', () => r()));
+      port = (blocker.address() as net.AddressInfo).port;
+    });
+    afterAll(async () => {
+      const { stopBackground } = await import('@/lib/jobs');
+      await stopBackground();
+      await new Promise((r) => blocker.close(r));
+      process.env.THAWLINE_JOBS = 'off';
+      delete process.env.MQTT_BROKER_PORT;
+      delete process.env.SMTP_CAPTURE_PORT;
+      const { resetEnvCache } = await import('@/lib/env');
+      resetEnvCache();
+    });
+
+    it('stops only the broker: the capture and the scheduler start, health says degraded', async () => {
+      const { stopBackground, startBackground } = await import('@/lib/jobs');
+      await stopBackground();
+      process.env.THAWLINE_JOBS = 'on';
+      process.env.SMTP_CAPTURE_PORT = '0';
+      process.env.MQTT_BROKER_PORT = String(port);
+      const { resetEnvCache } = await import('@/lib/env');
+      resetEnvCache();
+      vi.spyOn(console, 'error').mockImplementation(() => {});
+      vi.spyOn(console, 'log').mockImplementation(() => {});
+      const bg = await startBackground({ runNow: false });
+      vi.restoreAllMocks();
+      expect(bg?.broker).toMatchObject({ state: 'failed', reason: 'port-in-use', port });
+      expect(bg?.capture.state).toBe('running');
+      expect(bg?.jobs.state).toBe('running');
+      const r = await get();
+      expect(r.body.status).toBe('degraded');
+      expect(r.body.fakes.mqtt).toMatchObject({ local: true, broker: { state: 'failed', reason: 'port-in-use' } });
     });
   });
 });
