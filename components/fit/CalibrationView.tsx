@@ -7,7 +7,7 @@ import useSWR from 'swr';
 import { Button, Card, EmptyState, Notice } from '@/components/ui/primitives';
 import { useConfirm } from '@/components/ui/ConfirmDialog';
 import { SelectField } from '@/components/ui/Field';
-import { fetcher, sendJson } from '@/lib/client/fetcher';
+import { fetcher, sendFile, sendJson } from '@/lib/client/fetcher';
 import { formatDateTime } from '@/lib/time';
 import type { TempUnit } from '@/lib/units';
 import type { LogPreview, LogRecord, SeriesForChart, StoredFit } from '@/lib/views/logs';
@@ -17,7 +17,6 @@ import { ProfileHistory, type Profile } from './ProfileHistory';
 import { UploadForm } from './UploadForm';
 import { StatusArea } from '@/components/ui/StatusArea';
 import { PreviewDetails } from './PreviewDetails';
-import { sendFile } from './upload';
 
 export interface CalibrationAircraft {
   id: number;

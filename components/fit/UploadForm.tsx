@@ -3,8 +3,8 @@
 import { useRef, useState } from 'react';
 import { Button } from '@/components/ui/primitives';
 import { SelectField } from '@/components/ui/Field';
+import { sendFile } from '@/lib/client/fetcher';
 import type { LogPreview } from '@/lib/views/logs';
-import { sendFile } from './upload';
 
 const MAX_BYTES = 5 * 1024 * 1024;
 

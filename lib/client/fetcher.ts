@@ -14,14 +14,11 @@ export async function fetcher<T = unknown>(url: string): Promise<T> {
 
 export type SendResult<T> = { ok: true; data: T } | { ok: false; status: number; message: string; fields: Record<string, string> };
 
-export async function sendJson<T = unknown>(url: string, method: 'POST' | 'PATCH' | 'PUT' | 'DELETE', body?: unknown): Promise<SendResult<T>> {
+/** One request with a body, answered as a SendResult (no connection → status 0; field errors by path). */
+async function send<T>(url: string, init: RequestInit): Promise<SendResult<T>> {
   let res: Response;
   try {
-    res = await fetch(url, {
-      method,
-      headers: { 'content-type': 'application/json', accept: 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    });
+    res = await fetch(url, init);
   } catch {
     return { ok: false, status: 0, message: 'No connection to Thawline. Check the network and try again.', fields: {} };
   }
@@ -30,4 +27,17 @@ export async function sendJson<T = unknown>(url: string, method: 'POST' | 'PATCH
   const fields: Record<string, string> = {};
   for (const f of (data?.fields ?? []) as { field: string; message: string }[]) fields[f.field] ??= f.message;
   return { ok: false, status: res.status, message: data?.message ?? `Request failed (${res.status}).`, fields };
+}
+
+export async function sendJson<T = unknown>(url: string, method: 'POST' | 'PATCH' | 'PUT' | 'DELETE', body?: unknown): Promise<SendResult<T>> {
+  return send<T>(url, {
+    method,
+    headers: { 'content-type': 'application/json', accept: 'application/json' },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
+}
+
+/** Sends a file as the request body (the CSV reader streams it on the server) and reads the JSON answer. */
+export async function sendFile<T>(url: string, file: Blob): Promise<SendResult<T>> {
+  return send<T>(url, { method: 'POST', body: file, headers: { 'content-type': 'text/csv', accept: 'application/json' } });
 }
