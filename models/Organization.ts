@@ -9,6 +9,8 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare coldNightNoticeAt: CreationOptional<string>;
   /** The start window new departures get, minutes (the heater stays on this long past departure). */
   declare holdMinutes: CreationOptional<number>;
+  /** Plans aim to be ready with this chance (0.5–0.99), counting every error source (lib/planner/chance.ts). */
+  declare targetChance: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -21,6 +23,7 @@ export function initOrganization(sequelize: Sequelize) {
       coldNightThresholdC: { type: DataTypes.FLOAT, allowNull: false, defaultValue: -5 },
       coldNightNoticeAt: { type: DataTypes.STRING(5), allowNull: false, defaultValue: '18:00' },
       holdMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
+      targetChance: { type: DataTypes.FLOAT, allowNull: false, defaultValue: 0.9 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

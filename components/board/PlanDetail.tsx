@@ -72,7 +72,17 @@ export function PlanDetail({ departureId, units, canConfirm, onConfirmed }: { de
         <div>
           <p className="font-semibold">Prediction</p>
           <p className="mt-1">Oil at departure {formatTemp(p.oilAtDepartureC, units)} · ready {formatTemp(p.readyC, units, 0)}</p>
-          <p>Chance of being ready {pct(p.probabilityReady)}</p>
+          <p>
+            Chance of being ready {pct(p.probabilityReady)}
+            {p.chance ? <span className="text-slate-600 dark:text-slate-400"> (aim {pct(p.chance.target)})</span> : null}
+          </p>
+          {p.chance ? (
+            <p className="text-xs text-slate-600 dark:text-slate-400">
+              Oil at departure uncertain by forecast ±{p.chance.forecastK.toFixed(1)} °C, aircraft model ±{p.chance.aircraftK.toFixed(1)} °C, heater ±{p.chance.heaterK.toFixed(1)} °C
+              {p.chance.outcomesK > 0 ? `, recorded mornings ±${p.chance.outcomesK.toFixed(1)} °C (bias ${p.chance.biasK >= 0 ? '+' : '−'}${Math.abs(p.chance.biasK).toFixed(1)} °C)` : ''}
+              {p.chance.coverOffProbability > 0 ? `; if the cover is left off (${Math.round(p.chance.coverOffProbability * 100)} % assumed) the oil is ${p.chance.coverDropK.toFixed(0)} °C colder` : ''}.
+            </p>
+          ) : null}
           {p.hold ? (
             <p>
               Lowest in the start window: oil {formatTemp(p.hold.minOilC, units)}

@@ -22,6 +22,9 @@ import { worstReadiness, type Readiness } from '@/lib/plans/state';
 import { frostRisk } from '@/lib/plans/frost';
 import { makerVerdict } from '@/lib/plans/maker-rule';
 import { ENGINE_CLASSES, type EngineClassId } from '@/lib/thermal/presets';
+import { COVER_OFF_PROBABILITY, FITTED_LOSS_REL_SIGMA, planForChance, PRESET_ERRORS, PRESET_LOSS_REL_SIGMA, type ChanceBreakdown, type ErrorModel } from '@/lib/planner/chance';
+import type { BiasEstimate } from '@/lib/outcomes/stats';
+import { outcomeStatsByAircraft } from './outcomes';
 export type { Readiness };
 
 /** Plans are recomputed at most this often for the same inputs (the clock moves the earliest switch-on). */
@@ -61,6 +64,8 @@ export interface PlanView {
   confirmed: { by: string; at: string } | null;
   computedAt: string;
   forecast: { fetchedAt: string | null; stale: boolean } | null;
+  /** The chance's sources (σ of the oil at departure, K) and the organization's aim; null without a plan. */
+  chance: { target: number; meetsTarget: boolean; forecastK: number; aircraftK: number; heaterK: number; outcomesK: number; biasK: number; coverDropK: number; coverOffProbability: number } | null;
   /** Frost on the airframe before departure (aircraft outside only; null under a roof or without a forecast). */
   frost: { likely: boolean; hours: number; from: string | null; to: string | null } | null;
   problem?: string;
@@ -74,6 +79,26 @@ interface Context {
   forecasts: Map<number, Forecast | null>;
   tariffs: Map<number, TariffRecord>;
   now: Date;
+  /** The organization's "plan to be ready with this chance". */
+  targetChance: number;
+  /** What each aircraft's morning outcomes taught (bias and σ), by aircraft id. */
+  outcomes: Map<number, BiasEstimate>;
+}
+
+/** Outcomes take over from the preset's error figures once there are this many mornings. */
+const OUTCOMES_TRUSTED_FROM = 3;
+
+/**
+ * The error sources for an aircraft: a class preset's (or fitted profile's) heat-loss σ, the heater
+ * tolerance and the cover; once enough mornings are recorded, their posterior bias and predictive σ
+ * replace the model, heater and cover terms (the recorded errors contain them; the forecast term stays,
+ * which counts it twice and errs towards caution).
+ */
+function errorModelFor(d: DepartureRecord, ctx: Context): ErrorModel {
+  const o = ctx.outcomes.get(d.aircraft.id);
+  if (o && o.n >= OUTCOMES_TRUSTED_FROM) return { lossRelSigma: 0, powerRelSigma: 0, coverOffProbability: 0, biasK: o.biasK, outcomeSigmaK: o.predictiveSigmaK };
+  const fitted = d.aircraft.thermal.source === 'fitted';
+  return { ...PRESET_ERRORS, lossRelSigma: fitted ? FITTED_LOSS_REL_SIGMA : PRESET_LOSS_REL_SIGMA, coverOffProbability: d.aircraft.coverOnByDefault ? COVER_OFF_PROBABILITY : 0 };
 }
 
 function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
@@ -104,6 +129,7 @@ function recordsFor(d: DepartureRecord, ctx: Context): PlanRecords | null {
       pricePerKWh: p.pricePerKWh,
     })),
     forecastIssuedAtMs: fc.fetchedAt ? new Date(fc.fetchedAt).getTime() : null,
+    chance: { target: ctx.targetChance, errors: errorModelFor(d, ctx) },
   };
 }
 
@@ -119,6 +145,8 @@ interface Computed {
   result: PlanResult | null;
   freeOilC: number | null;
   problem?: string;
+  /** The chance's breakdown by source and the target it was planned for. */
+  chance?: { target: number; meetsTarget: boolean; breakdown: ChanceBreakdown };
 }
 
 function compute(r: PlanRecords, nowMs: number): Computed {
@@ -139,8 +167,21 @@ function compute(r: PlanRecords, nowMs: number): Computed {
     const w = windowMinimum(model, dep, dep + (r.departure.holdMinutes ?? 0) * 60_000);
     return { status: w.oilC >= r.departure.readyC ? 'ready' : 'unplanned', result: null, freeOilC: free };
   }
-  const result = planDeparture(req);
-  return { status: result.status, result, freeOilC: result.freeOilAtDepartureC };
+  if (!r.chance) {
+    const result = planDeparture(req);
+    return { status: result.status, result, freeOilC: result.freeOilAtDepartureC };
+  }
+  // Plans aim at the organization's chance, counting every error source, not the forecast alone.
+  const c = planForChance(req, r.chance.target, r.chance.errors);
+  return { status: c.result.status, result: c.result, freeOilC: c.result.freeOilAtDepartureC, chance: { target: c.targetChance, meetsTarget: c.meetsTarget, breakdown: c.breakdown } };
+}
+
+/** A heat plan is "on track" only at or above the organization's chance; below it, say the chance and what would raise it. */
+function chanceSummary(c: Computed): string | null {
+  if (!c.chance || c.status !== 'warming' || !c.result) return null;
+  const pct = (p: number) => `${Math.round(p * 100)} %`;
+  if (c.chance.meetsTarget) return `Heat plan on track: ${pct(c.result.probabilityReady)} chance (aim ${pct(c.chance.target)})`;
+  return `Only ${pct(c.result.probabilityReady)} chance of being ready (aim ${pct(c.chance.target)}): a cover, a stronger heater, a warmer shelter or a later departure would raise it`;
 }
 
 function summaryOf(status: Readiness, v: { heater: PlanView['heater']; fix: PlanView['fix'] }): string {
@@ -180,7 +221,20 @@ function viewOf(d: DepartureRecord, c: Computed, plan: { computedAt: Date; confi
     shelter: d.aircraft.shelter ? { name: d.aircraft.shelter.name, kind: d.aircraft.shelter.kind } : null,
     heater: heaterView,
     status: c.status,
-    summary: c.problem ?? summaryOf(c.status, { heater: heaterView, fix }),
+    summary: c.problem ?? chanceSummary(c) ?? summaryOf(c.status, { heater: heaterView, fix }),
+    chance: c.chance
+      ? {
+          target: c.chance.target,
+          meetsTarget: c.chance.meetsTarget,
+          forecastK: c.chance.breakdown.forecastK,
+          aircraftK: c.chance.breakdown.aircraftK,
+          heaterK: c.chance.breakdown.heaterK,
+          outcomesK: c.chance.breakdown.outcomesK,
+          biasK: c.chance.breakdown.expectedOilC - (r?.oilAtDepartureC ?? c.chance.breakdown.expectedOilC),
+          coverDropK: c.chance.breakdown.coverDropK,
+          coverOffProbability: c.chance.breakdown.coverOffProbability,
+        }
+      : null,
     mode: r?.mode ?? null,
     switchOnAt: r && r.heaterOn.length ? iso(r.switchOnAtMs ?? r.heaterOn[0].fromMs) : null,
     heaterOn: (r?.heaterOn ?? []).map((i) => ({ from: iso(i.fromMs)!, to: iso(i.toMs)! })),
@@ -226,7 +280,12 @@ async function contextFor(orgId: number, departures: DepartureRecord[], now: Dat
   const forecasts = new Map<number, Forecast | null>();
   await Promise.all(airfields.map(async (a: Airfield) => forecasts.set(a.id, await forecastFor({ airfield: a, now, refresh }))));
   const tariffs = await tariffsFor({ orgId, airfieldIds: ids });
-  return { forecasts, tariffs, now };
+  const aircraftIds = [...new Set(departures.map((d) => d.aircraft.id))];
+  const [org, outcomes] = await Promise.all([
+    db().Organization.findByPk(orgId, { attributes: ['id', 'targetChance'] }),
+    aircraftIds.length ? outcomeStatsByAircraft({ orgId, aircraftIds, now }) : Promise.resolve(new Map<number, BiasEstimate>()),
+  ]);
+  return { forecasts, tariffs, now, targetChance: org?.targetChance ?? 0.9, outcomes };
 }
 
 type StoredPlan = Omit<InferCreationAttributes<HeatPlan>, 'id' | 'createdAt' | 'updatedAt' | 'confirmedById' | 'confirmedAt' | 'confirmedKey'>;

@@ -2,6 +2,7 @@
 // No database, network or clock: the caller passes `nowMs` and the forecast hours.
 import type { ForecastHour } from '@/lib/weather/types';
 import { toSoakInputs } from '@/lib/weather/derive';
+import type { ErrorModel } from '@/lib/planner/chance';
 import { ENGINE_CLASSES, engineThresholdFor, type EngineClassId } from '@/lib/thermal/presets';
 import { outsideAt, type SoakModel } from '@/lib/thermal';
 import type { PlanMode, PlannedHeater, PlanRequest, TariffPeriod } from '@/lib/planner/types';
@@ -40,6 +41,8 @@ export interface PlanRecords {
   hours: readonly ForecastHour[];
   tariff: TariffPeriod[];
   forecastIssuedAtMs: number | null;
+  /** Plan to be ready with this chance, counting these error sources (lib/planner/chance.ts); absent: the forecast's best guess. */
+  chance?: { target: number; errors: ErrorModel };
 }
 
 /** The heater the plan drives: the strongest one fitted. */

@@ -10,6 +10,7 @@ import * as m008 from './008-rate-limits';
 import * as m008w from './008-start-window';
 import * as m009 from './009-outcomes';
 import * as m010 from './010-devices';
+import * as m011 from './011-plan-chance';
 
 export interface Migration {
   name: string;
@@ -31,4 +32,5 @@ export const migrations: Migration[] = [
   { name: '008-start-window', ...m008w },
   { name: '009-outcomes', ...m009 },
   { name: '010-devices', ...m010 },
+  { name: '011-plan-chance', ...m011 },
 ];

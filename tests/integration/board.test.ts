@@ -90,3 +90,20 @@ describe('one switch-on time for a stored plan', () => {
     }
   });
 });
+
+describe('an honest chance on the board', () => {
+  it('says "on track" only at or above the organization’s aim (90 %), and gives the sources of the chance', async () => {
+    const me = await signInAs(DEMO.operator);
+    const { morningBoard } = await import('@/lib/data/plans');
+    const b = await morningBoard({ orgId: me.organizationId, refresh: 'never' });
+    const heated = b.plans.filter((p) => p.status === 'warming');
+    expect(heated.length).toBeGreaterThan(0);
+    for (const p of heated) {
+      expect(p.chance).toBeTruthy();
+      if (/on track/.test(p.summary)) expect(p.probabilityReady!).toBeGreaterThanOrEqual(0.9 - 1e-3);
+      else expect(p.summary).toMatch(/chance of being ready \(aim 90 %\)/);
+      // A preset aircraft: the model's error is counted, not only the forecast's.
+      expect(p.chance!.aircraftK + p.chance!.outcomesK).toBeGreaterThan(0);
+    }
+  });
+});
