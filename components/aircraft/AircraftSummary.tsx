@@ -4,7 +4,7 @@ import { Card } from '@/components/ui/primitives';
 import { ShelterKindIcon } from '@/components/airfields/ShelterKindIcon';
 import { formatNumber } from '@/components/airfields/format';
 import type { TempUnit, VolumeUnit } from '@/lib/units';
-import type { AircraftRecord } from '@/lib/data/aircraft';
+import type { AircraftRecord } from '@/lib/views/aircraft';
 import { SHELTER_KIND_LABEL } from '@/lib/validation/airfields';
 import { HEATER_CONTROL_HINT, HEATER_CONTROL_LABEL } from '@/lib/validation/aircraft';
 import { fmtAt, fmtPower, fmtTemp, fmtVolume, totalPowerW } from './format';

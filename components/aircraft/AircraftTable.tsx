@@ -7,7 +7,7 @@ import { SortHeader, theadClass, useSorted } from '@/components/airfields/sortab
 import { ShelterKindIcon } from '@/components/airfields/ShelterKindIcon';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
 import type { TempUnit, VolumeUnit } from '@/lib/units';
-import type { AircraftRecord } from '@/lib/data/aircraft';
+import type { AircraftRecord } from '@/lib/views/aircraft';
 import { SHELTER_KIND_LABEL } from '@/lib/validation/airfields';
 import { fmtAt, fmtPower, fmtTemp, fmtVolume, totalPowerW } from './format';
 

@@ -1,7 +1,7 @@
 // Display helpers for aircraft and their heaters (client and server).
 import { formatDayTime, zoneLabel } from '@/lib/time';
 import { tempLabel, toDisplayTemp, toDisplayVolume, volumeLabel, type TempUnit, type VolumeUnit } from '@/lib/units';
-import type { AircraftRecord, HeaterRecord } from '@/lib/data/aircraft';
+import type { AircraftRecord, HeaterRecord } from '@/lib/views/aircraft';
 import { HEATER_CONTROL_LABEL } from '@/lib/validation/aircraft';
 
 const MINUS = '\u2212';

@@ -1,6 +1,6 @@
 import { FROST_CAUTION } from '@/lib/plans/frost';
 import { formatTime } from '@/lib/time';
-import type { PlanView } from '@/lib/data/plans';
+import type { PlanView } from '@/lib/views/plans';
 
 /** The frost flag of a departure whose airframe spends the night outside: a chip, or a line with the caution. */
 export function FrostNote({ plan, compact = false }: { plan: Pick<PlanView, 'frost' | 'airfield'>; compact?: boolean }) {

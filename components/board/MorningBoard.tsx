@@ -2,13 +2,16 @@
 import useSWR from 'swr';
 import { useState } from 'react';
 import { formatTemp } from '@/components/airfields/format';
-import { Button, Card, EmptyState, Notice } from '@/components/ui/primitives';
+import { Card, EmptyState, Notice } from '@/components/ui/primitives';
 import { fetcher } from '@/lib/client/fetcher';
 import { formatDay, formatTime } from '@/lib/time';
-import type { PlanView, Readiness } from '@/lib/data/plans';
+import type { PlanView } from '@/lib/views/plans';
+import type { Readiness } from '@/lib/plans/state';
 import { HeaterStateBadge, ReadinessBadge } from './ReadinessBadge';
 import { heaterStateAt, whenLabel } from '@/lib/plans/state';
 import { PlanDetail } from './PlanDetail';
+import { money, pct } from './parts';
+export { ConfirmButton, money, pct } from './parts';
 import { FrostNote } from './FrostNote';
 
 export interface BoardData {
@@ -20,13 +23,6 @@ export interface BoardData {
 
 const CONTROL: Record<string, string> = { timer: 'timer', relay: 'relay', manual: 'by hand' };
 
-export function money(v: number | null, currency: string) {
-  if (v === null) return '—';
-  return new Intl.NumberFormat('en-GB', { style: 'currency', currency, maximumFractionDigits: 2 }).format(v);
-}
-export function pct(p: number | null) {
-  return p === null ? '—' : `${Math.round(p * 100)} %`;
-}
 
 /** The operator's page: the next morning's departures in switch-on order, per airfield. */
 export function MorningBoard({ initial, units, canConfirm }: { initial: BoardData; units: 'C' | 'F'; canConfirm: boolean }) {
@@ -165,20 +161,3 @@ function BoardRow({ p, zone, units, nowMs, expanded, onToggle, canConfirm, onCon
   );
 }
 
-export function ConfirmButton({ departureId, onDone }: { departureId: number; onDone: () => void }) {
-  const [state, setState] = useState<'idle' | 'busy' | 'done' | 'failed'>('idle');
-  return (
-    <Button
-      variant="secondary"
-      disabled={state === 'busy'}
-      onClick={async () => {
-        setState('busy');
-        const r = await fetch(`/api/departures/${departureId}/plan/confirm`, { method: 'POST' });
-        setState(r.ok ? 'done' : 'failed');
-        onDone();
-      }}
-    >
-      {state === 'done' ? 'Confirmed' : state === 'failed' ? 'Could not confirm — retry' : 'Confirm heat plan'}
-    </Button>
-  );
-}

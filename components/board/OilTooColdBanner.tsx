@@ -1,6 +1,6 @@
 import { formatTemp } from '@/components/airfields/format';
 import { formatDayTime } from '@/lib/time';
-import type { PlanView } from '@/lib/data/plans';
+import type { PlanView } from '@/lib/views/plans';
 
 /** The oil-too-cold warning on screen: each departure that will not be ready, what would fix it, and the cautions. */
 export function OilTooColdBanner({ plans, units, showPilot = false, title }: { plans: PlanView[]; units: 'C' | 'F'; showPilot?: boolean; title?: string }) {

@@ -1,6 +1,6 @@
 import { formatTemp } from '@/components/airfields/format';
 import { heaterLine, heaterStateAt, holdLine } from '@/lib/plans/state';
-import type { PlanView } from '@/lib/data/plans';
+import type { PlanView } from '@/lib/views/plans';
 import { ReadinessBadge } from './ReadinessBadge';
 import Link from 'next/link';
 import { FrostNote } from './FrostNote';

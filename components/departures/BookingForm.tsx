@@ -8,7 +8,7 @@ import { fmtTemp } from '@/components/aircraft/format';
 import { sendJson } from '@/lib/client/fetcher';
 import { addDays, formatDayTime, localDateKey, localDateOf, zoneLabel } from '@/lib/time';
 import { fromDisplayTemp, tempLabel, toDisplayTemp, type TempUnit } from '@/lib/units';
-import type { DepartureRecord } from '@/lib/data/departures';
+import type { DepartureRecord } from '@/lib/views/departures';
 import { DEPARTURES_KEY } from './DepartureList';
 
 export interface BookableAircraft {

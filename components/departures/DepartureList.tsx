@@ -9,7 +9,7 @@ import { fmtPower, fmtTemp, totalPowerW } from '@/components/aircraft/format';
 import { fetcher, sendJson } from '@/lib/client/fetcher';
 import { addDays, formatDay, formatTime, localDateKey, localDateOf, zoneLabel } from '@/lib/time';
 import type { TempUnit } from '@/lib/units';
-import type { DepartureRecord } from '@/lib/data/departures';
+import type { DepartureRecord } from '@/lib/views/departures';
 
 export const DEPARTURES_KEY = '/api/departures';
 

@@ -9,7 +9,7 @@ import { FieldShell, SelectField, TextField, inputClass } from '@/components/ui/
 import { sendJson } from '@/lib/client/fetcher';
 import { formatDayTime, formatTime, localDateKey, localDateOf, zoneLabel } from '@/lib/time';
 import { fromDisplayTemp, tempLabel, toDisplayTemp, type TempUnit } from '@/lib/units';
-import type { DepartureRecord } from '@/lib/data/departures';
+import type { DepartureRecord } from '@/lib/views/departures';
 
 const num = (s: string) => Number(s.trim().replace(/\u2212/g, '-').replace(',', '.'));
 /** A temperature typed in the user's unit → °C; empty → null (cleared); unreadable text goes as typed (the server names it). */

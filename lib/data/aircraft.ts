@@ -5,7 +5,6 @@ import type { Aircraft, ThermalParams } from '@/models/Aircraft';
 import { Heater } from '@/models/Heater';
 import { AircraftPilot } from '@/models/AircraftPilot';
 import { Departure } from '@/models/Departure';
-import type { ShelterKind } from '@/models/Shelter';
 import { Conflict, Invalid, NotFound } from '@/lib/api/errors';
 import { aircraftDefaultsFor } from '@/lib/seed/defaults';
 import { heaterWarnings, type EngineClassId } from '@/lib/thermal/presets';
@@ -16,7 +15,6 @@ import {
   HEATER_KINDS,
   type AircraftCreate,
   type AircraftUpdate,
-  type HeaterControl,
   type HeaterInput,
   type HeaterKind,
   type ThermalInput,
@@ -27,82 +25,14 @@ import { writeTransaction } from '@/models/transaction';
 // organization. Another organization's aircraft is "not found": it does not exist for the caller.
 // A profile, its heaters and its pilots are written in one transaction.
 
-export interface HeaterRecord {
-  id: number;
-  kind: string;
-  kindLabel: string;
-  powerW: number;
-  node: 'oil' | 'engine';
-  control: HeaterControl;
-  slotMinutes: number;
-}
+export type { HeaterRecord, ShelterRef, AirfieldRef, AircraftRecord, ShelterChoice, PilotChoice, EngineClassOption } from '@/lib/views/aircraft';
+import type { AircraftRecord, ShelterChoice, PilotChoice, EngineClassOption } from '@/lib/views/aircraft';
 
-export interface ShelterRef {
-  id: number;
-  name: string;
-  kind: ShelterKind;
-  heatCapacityJPerK: number;
-  lossWPerK: number;
-  solarApertureM2: number;
-  setpointC: number | null;
-  heatingPowerW: number | null;
-}
 
-export interface AirfieldRef {
-  id: number;
-  name: string;
-  ident: string;
-  latitude: number;
-  longitude: number;
-  elevationM: number;
-  /** IANA zone: every time at this airfield is shown in it. */
-  timeZone: string;
-}
 
-export interface AircraftRecord {
-  id: number;
-  registration: string;
-  typeLabel: string;
-  engineClass: string;
-  engineClassLabel: string;
-  oilQuantityL: number;
-  thermal: ThermalParams;
-  coverOnByDefault: boolean;
-  shelter: ShelterRef | null;
-  airfield: AirfieldRef | null;
-  heaters: HeaterRecord[];
-  pilots: { id: number; name: string }[];
-  pilotIds: number[];
-  /** As entered (ISO) or null when nobody entered one. */
-  lastShutdownAt: string | null;
-  /** As entered, or null: then the class's typical value (`classDefaults.shutdownOilC`) applies. */
-  lastShutdownOilC: number | null;
-  /** The engine class's typical values: ready temperature, oil at shutdown, oil quantity. */
-  classDefaults: { readyC: number; shutdownOilC: number; oilL: number; engineReadyC: number | null; readinessOil: 'oil' | 'engine' };
-  /** The aircraft's engine-mass threshold as entered, or null: then classDefaults.engineReadyC (estimate). */
-  engineReadyC: number | null;
-  /** The maker's rule in force: the aircraft's own figures where entered, else the class's (estimate: true). */
-  makerRule: { preheatBelowC: number; soakHours: number; minStartOilC: number; estimate: boolean } | null;
-  /** Heater set-ups that mislead (a tank pad alone on a dry sump), with a suggestion. */
-  heaterWarnings: { code: string; text: string; suggestion: string }[];
-  oilChangeIntervalHours: number | null;
-  oilChangeIntervalMonths: number | null;
-  archived: boolean;
-  updatedAt: string;
-}
 
-export interface ShelterChoice {
-  airfield: { id: number; name: string; ident: string; timeZone: string };
-  shelters: { id: number; name: string; kind: ShelterKind }[];
-}
 
-export interface PilotChoice {
-  id: number;
-  name: string;
-  email: string;
-  /** The aircraft this pilot is listed on (the booking form warns when another is chosen). */
-  aircraftIds: number[];
-}
+
 
 type AircraftWithIncludes = Aircraft & {
   heaters?: Heater[];
@@ -410,15 +340,6 @@ export async function archiveAircraft({ orgId, aircraftId, now = new Date() }: {
   });
 }
 
-export interface EngineClassOption {
-  id: string;
-  label: string;
-  oilQuantityL: number;
-  readyC: number;
-  shutdownOilC: number;
-  heaters: { kind: string; powerW: number; node: 'oil' | 'engine' }[];
-  thermal: ThermalParams;
-}
 
 /** The engine classes with the values a new profile starts from (for the form). */
 export function engineClassOptions(): EngineClassOption[] {

@@ -7,6 +7,8 @@ import { formatDayTime, localDateKey, localDateOf, zonedTimeToUtc } from '@/lib/
 import { MAX_DAYS_AHEAD, MIN_HOURS_BETWEEN, type DepartAtInput, type DepartureCreate, type DepartureUpdate } from '@/lib/validation/departures';
 import { getAircraft, loadAircraftRecords, mayBook, type AircraftRecord } from './aircraft';
 import { writeTransaction } from '@/models/transaction';
+export type { DepartureRecord } from '@/lib/views/departures';
+import type { DepartureRecord } from '@/lib/views/departures';
 
 // Departures (the first flight of a day per aircraft), always scoped to one organization. A pilot
 // books and changes their own, for aircraft they may fly; roles with 'departures:book-any' for anyone.
@@ -15,34 +17,6 @@ import { writeTransaction } from '@/models/transaction';
 const HOUR_MS = 3_600_000;
 const DAY_MS = 24 * HOUR_MS;
 
-export interface DepartureRecord {
-  id: number;
-  /** ISO instant. */
-  departAt: string;
-  departAtMs: number;
-  /** The airfield's zone (UTC when the aircraft has no home shelter). */
-  timeZone: string;
-  /** Local date of the departure at the airfield, YYYY-MM-DD. */
-  localDate: string;
-  readyC: number;
-  floorC: number | null;
-  /** Start window, minutes: ready from departAt through it; the heater stays on until just before start. */
-  holdMinutes: number;
-  /** The engine class's ready temperature (the lowest allowed without lowering). */
-  classReadyC: number;
-  /** The lowest an operator may lower it to: the aircraft's figure (the maker's minimum oil for start), or null. */
-  lowestReadyC: number | null;
-  /** The ready temperature was lowered below the class's: who and when (follow the manual). */
-  readyLowered: { by: string; at: string } | null;
-  notes: string;
-  cancelled: boolean;
-  cancelledAt: string | null;
-  pilot: { id: number; name: string };
-  bookedBy: { id: number; name: string };
-  aircraft: AircraftRecord;
-  createdAt: string;
-  updatedAt: string;
-}
 
 /** Who is acting: their id and whether they may book for anyone. */
 export interface Actor {

@@ -67,7 +67,7 @@ export function sampleStates(plan: Plan, times: ArrayLike<number>, outsideOut?: 
   let lastDt = -1;
   for (let si = 0; si < segs.length; si++) {
     const seg = segs[si];
-    if (seg.pin === seg.pin) x0 = seg.pin; // the shelter is state 0 whenever it exists
+    if (!Number.isNaN(seg.pin)) x0 = seg.pin; // the shelter is state 0 whenever it exists
     const t1 = seg.t1;
     const segT0 = seg.t0;
     const tout0 = seg.tout0;
@@ -190,7 +190,7 @@ export function walk(plan: Plan, stops: ArrayLike<number>, visit: (s: Step) => b
   let t = plan.startMs;
   for (const seg of plan.segs) {
     if (seg.t0 >= untilMs) return;
-    if (seg.pin === seg.pin) xa[plan.iS] = seg.pin;
+    if (!Number.isNaN(seg.pin)) xa[plan.iS] = seg.pin;
     while (t < seg.t1 && t < untilMs) {
       while (j < stops.length && stops[j] <= t) j++;
       let tn = j < stops.length && stops[j] < seg.t1 ? stops[j] : seg.t1;

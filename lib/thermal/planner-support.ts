@@ -114,7 +114,7 @@ export function oilResponses(
       ta[S] = t;
       tb[S] = tn;
       oiOf[S] = oi;
-      pinned[S] = t === seg.t0 && seg.pin === seg.pin ? 1 : 0;
+      pinned[S] = t === seg.t0 && !Number.isNaN(seg.pin) ? 1 : 0;
       ds.push(d);
       S++;
       t = tn;
