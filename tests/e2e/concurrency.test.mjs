@@ -68,9 +68,10 @@ async function aircraftId(client, registration) {
   return a.id;
 }
 
+// Q-KUURA: no other browser test books it, so its 50 days never clash with theirs (the run shares one database).
 test('50 bookings on 50 different days: 50 × 201, and 50 more departures listed', async () => {
   const op = await as('operator');
-  const id = await aircraftId(op, 'Q-KAPA');
+  const id = await aircraftId(op, 'Q-KUURA');
   const count = async () => (await op.send('GET', `/api/departures?aircraftId=${id}&from=${encodeURIComponent(new Date().toISOString())}&to=${encodeURIComponent(new Date(Date.now() + 61 * 86_400_000).toISOString())}`)).body.departures.length;
   const before = await count();
   const res = await Promise.all(Array.from({ length: 50 }, (_, i) => op.send('POST', '/api/departures', { aircraftId: id, departAt: `${localDay(8 + i)}T07:30` })));
