@@ -133,8 +133,10 @@ function BoardRow({ p, zone, units, nowMs, expanded, onToggle, canConfirm, onCon
           <div className="text-xs text-slate-500">{formatDay(dep, zone)}</div>
         </td>
         <td className="hidden px-4 py-3 tabular-nums md:table-cell">
-          <div className={`font-semibold ${p.oilAtDepartureC !== null && p.oilAtDepartureC < p.readyC ? 'text-red-700 dark:text-red-300' : ''}`}>{formatTemp(p.oilAtDepartureC, units, 0)}</div>
-          <div className="text-xs text-slate-500">ready {formatTemp(p.readyC, units, 0)} · unheated {formatTemp(p.freeOilAtDepartureC, units, 0)}</div>
+          <div className={`font-semibold ${p.status !== 'no-heat' && p.oilAtDepartureC !== null && p.oilAtDepartureC < p.readyC ? 'text-red-700 dark:text-red-300' : ''}`}>{formatTemp(p.oilAtDepartureC, units, 0)}</div>
+          <div className="text-xs text-slate-500">
+            {p.status === 'no-heat' ? 'no preheat needed by the maker’s rule' : <>ready {formatTemp(p.readyC, units, 0)} · unheated {formatTemp(p.freeOilAtDepartureC, units, 0)}</>}
+          </div>
         </td>
         <td className="hidden px-4 py-3 tabular-nums md:table-cell">{pct(p.probabilityReady)}</td>
         <td className="hidden px-4 py-3 md:table-cell">

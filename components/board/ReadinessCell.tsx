@@ -15,7 +15,7 @@ export function ReadinessCell({ plan, units, nowMs }: { plan: PlanView; units: '
         {plan.probabilityReady !== null ? <span className="text-xs text-slate-600 dark:text-slate-400">{Math.round(plan.probabilityReady * 100)} % chance ready</span> : null}
       </div>
       <div className="tabular-nums">
-        Oil at departure <strong className={plan.oilAtDepartureC !== null && plan.oilAtDepartureC < plan.readyC ? 'text-red-700 dark:text-red-300' : ''}>{formatTemp(plan.oilAtDepartureC, units, 0)}</strong>
+        Oil at departure <strong className={plan.status !== 'no-heat' && plan.oilAtDepartureC !== null && plan.oilAtDepartureC < plan.readyC ? 'text-red-700 dark:text-red-300' : ''}>{formatTemp(plan.oilAtDepartureC, units, 0)}</strong>
         <span className="text-slate-500"> · ready {formatTemp(plan.readyC, units, 0)}</span>
       </div>
       {plan.switchOnAt ? (

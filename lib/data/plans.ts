@@ -44,6 +44,9 @@ interface Context {
   outcomes: Map<number, BiasEstimate>;
 }
 
+/** Hotter than this, a heated oil node is not believable: pad thermostats and the oil itself stop short of it (estimate). */
+const MAX_HEATED_OIL_C = 100;
+
 /** Outcomes take over from the preset's error figures once there are this many mornings. */
 const OUTCOMES_TRUSTED_FROM = 3;
 
@@ -132,7 +135,23 @@ function compute(r: PlanRecords, nowMs: number): Computed {
   }
   // Plans aim at the organization's chance, counting every error source, not the forecast alone.
   const c = planForChance(req, r.chance.target, r.chance.errors);
-  return { status: c.result.status, result: c.result, freeOilC: c.result.freeOilAtDepartureC, chance: { target: c.targetChance, meetsTarget: c.meetsTarget, breakdown: c.breakdown } };
+  const chance = { target: c.targetChance, meetsTarget: c.meetsTarget, breakdown: c.breakdown };
+  // A plan that reaches the engine's thresholds only by overheating the oil is no plan: a pad's
+  // thermostat and the oil itself set a limit (MAX_HEATED_OIL_C, estimate). Say so instead of showing it.
+  if (c.result.heaterOn.length) {
+    const heated = simulate(withHeater(req.model, req.heater, c.result.heaterOn), { outputEveryMinutes: 10 });
+    const hottest = Math.max(...heated.oilC);
+    if (hottest > MAX_HEATED_OIL_C) {
+      return {
+        status: 'short',
+        result: { ...c.result, status: 'short' },
+        freeOilC: c.result.freeOilAtDepartureC,
+        chance,
+        problem: `Only by overheating the oil (${Math.round(hottest)} °C): this heater cannot warm the whole engine; fit a heater on the engine (cylinder bands or a sump pad on the engine side)`,
+      };
+    }
+  }
+  return { status: c.result.status, result: c.result, freeOilC: c.result.freeOilAtDepartureC, chance };
 }
 
 /** A heat plan is "on track" only at or above the organization's chance; below it, say the chance and what would raise it. */

@@ -107,3 +107,15 @@ describe('an honest chance on the board', () => {
     }
   });
 });
+
+describe('no plan that overheats the oil', () => {
+  it('never offers a plan with the oil above 100 °C at departure (a pad thermostat stops short of it: estimate); it says short instead', async () => {
+    const me = await signInAs(DEMO.operator);
+    const { morningBoard } = await import('@/lib/data/plans');
+    const b = await morningBoard({ orgId: me.organizationId, refresh: 'never' });
+    for (const p of b.plans) {
+      if (p.status === 'warming') expect(p.oilAtDepartureC!).toBeLessThanOrEqual(100);
+      if (/overheating/.test(p.summary)) expect(p.status).toBe('short');
+    }
+  });
+});
