@@ -5,6 +5,8 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/primitives';
 import { SelectField, TextField } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
+import { useSubmit } from '@/components/ui/useSubmit';
+import { SubmitRow } from '@/components/ui/SubmitRow';
 
 export function UnitsForm({ tempUnit, volumeUnit }: { tempUnit: 'C' | 'F'; volumeUnit: 'L' | 'qt' }) {
   const router = useRouter();
@@ -69,6 +71,42 @@ export function PasswordForm() {
         <Button type="submit" disabled={pending}>{pending ? 'Changing…' : 'Change password'}</Button>
         <p role="status" aria-live="polite" className="text-sm text-slate-600 dark:text-slate-400">{status}</p>
       </div>
+    </form>
+  );
+}
+
+/** Managers: the chance plans aim at and the start window new departures get. */
+export function PlanningForm({ targetChance, holdMinutes }: { targetChance: number; holdMinutes: number }) {
+  const router = useRouter();
+  const [chance, setChance] = useState(String(Math.round(targetChance * 100)));
+  const [hold, setHold] = useState(String(holdMinutes));
+  const { fields, pending, status, canRetry, submit, retry } = useSubmit();
+  async function onSubmit(e: React.FormEvent) {
+    e.preventDefault();
+    const pct = Number(chance.trim().replace(',', '.'));
+    await submit('/api/organization', 'PATCH', { targetChance: Number.isFinite(pct) ? pct / 100 : chance, holdMinutes: hold }, 'Saved. Plans are recomputed with the new settings.', () => router.refresh());
+  }
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4">
+      <TextField
+        id="org-targetChance"
+        label="Plan to be ready with this chance (%)"
+        inputMode="numeric"
+        value={chance}
+        onChange={(e) => setChance(e.target.value)}
+        error={fields.targetChance}
+        hint="50–99. Plans heat until the chance of being ready, counting the forecast, the aircraft model and the heater, reaches it."
+      />
+      <TextField
+        id="org-holdMinutes"
+        label="Start window for new departures (minutes)"
+        inputMode="numeric"
+        value={hold}
+        onChange={(e) => setHold(e.target.value)}
+        error={fields.holdMinutes}
+        hint="0–120. Ready from the departure time through this window; the heater stays on until just before start."
+      />
+      <SubmitRow label="Save planning settings" pending={pending} status={status} canRetry={canRetry} onRetry={() => void retry()} />
     </form>
   );
 }

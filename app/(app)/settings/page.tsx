@@ -1,13 +1,15 @@
 import type { Metadata } from 'next';
 import { Card, Notice, PageHeader } from '@/components/ui/primitives';
 import { pageUser } from '@/lib/auth/page';
-import { ROLE_LABEL } from '@/lib/auth/permissions';
-import { PasswordForm, UnitsForm } from './forms';
+import { can, ROLE_LABEL } from '@/lib/auth/permissions';
+import { getPlanningSettings } from '@/lib/data/organization';
+import { PasswordForm, PlanningForm, UnitsForm } from './forms';
 
 export const metadata: Metadata = { title: 'Settings' };
 
 export default async function SettingsPage() {
   const user = await pageUser('org:read');
+  const planning = can(user.role, 'users:manage') ? await getPlanningSettings({ orgId: user.orgId }) : null;
   return (
     <>
       <PageHeader title="Settings" subtitle={`${user.name} · ${user.email} · ${ROLE_LABEL[user.role]}`} />
@@ -29,6 +31,13 @@ export default async function SettingsPage() {
           <p className="mb-4 text-sm text-slate-600 dark:text-slate-400">At least 10 characters.</p>
           <PasswordForm />
         </Card>
+        {planning ? (
+          <Card aria-labelledby="plan-h">
+            <h2 id="plan-h" className="text-lg font-semibold">Planning (organization)</h2>
+            <p className="mb-4 text-sm text-slate-600 dark:text-slate-400">For every aircraft of the organization. Estimates only: the manufacturer&apos;s instructions come first.</p>
+            <PlanningForm targetChance={planning.targetChance} holdMinutes={planning.holdMinutes} />
+          </Card>
+        ) : null}
       </div>
     </>
   );
