@@ -7,9 +7,10 @@ import { FieldShell, SelectField, TextField, inputClass } from '@/components/ui/
 import { fmtTemp } from '@/components/aircraft/format';
 import { sendJson } from '@/lib/client/fetcher';
 import { addDays, formatDayTime, localDateKey, localDateOf, zoneLabel } from '@/lib/time';
-import { fromDisplayTemp, tempLabel, toDisplayTemp, type TempUnit } from '@/lib/units';
+import { tempLabel, toDisplayTemp, type TempUnit } from '@/lib/units';
 import type { DepartureRecord } from '@/lib/views/departures';
 import { DEPARTURES_KEY } from './DepartureList';
+import { typedTempC } from './temps';
 
 export interface BookableAircraft {
   id: number;
@@ -21,14 +22,8 @@ export interface BookableAircraft {
   heaterW: number;
 }
 
-const num = (s: string) => Number(s.trim().replace(/\u2212/g, '-').replace(',', '.'));
-
-/** A temperature typed in the user's unit → °C (2 decimals); empty → undefined; unreadable text goes as typed (the server names it). */
-function toC(s: string, unit: TempUnit): number | string | undefined {
-  if (s.trim() === '') return undefined;
-  const n = num(s);
-  return Number.isFinite(n) ? Math.round(fromDisplayTemp(n, unit) * 100) / 100 : s;
-}
+/** Empty → undefined here: the booking then takes the class's ready temperature. */
+const toC = (s: string, unit: TempUnit) => typedTempC(s, unit) ?? undefined;
 
 const LABEL: Record<string, string> = {
   aircraftId: 'Aircraft',

@@ -3,21 +3,16 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useSWRConfig } from 'swr';
 import { DEPARTURES_KEY } from './DepartureList';
+import { typedTempC } from './temps';
 import { Button, ButtonLink } from '@/components/ui/primitives';
 import { ResultNotice, retryable, type FormResult } from '@/components/aircraft/ResultNotice';
 import { FieldShell, SelectField, TextField, inputClass } from '@/components/ui/Field';
 import { sendJson } from '@/lib/client/fetcher';
 import { formatDayTime, formatTime, localDateKey, localDateOf, zoneLabel } from '@/lib/time';
-import { fromDisplayTemp, tempLabel, toDisplayTemp, type TempUnit } from '@/lib/units';
+import { tempLabel, toDisplayTemp, type TempUnit } from '@/lib/units';
 import type { DepartureRecord } from '@/lib/views/departures';
 
-const num = (s: string) => Number(s.trim().replace(/\u2212/g, '-').replace(',', '.'));
-/** A temperature typed in the user's unit → °C; empty → null (cleared); unreadable text goes as typed (the server names it). */
-function toC(s: string, unit: TempUnit): number | string | null {
-  if (s.trim() === '') return null;
-  const n = num(s);
-  return Number.isFinite(n) ? Math.round(fromDisplayTemp(n, unit) * 100) / 100 : s;
-}
+const toC = typedTempC;
 const shown = (c: number | null, unit: TempUnit) => (c === null ? '' : String(Math.round(toDisplayTemp(c, unit) * 10) / 10));
 
 const LABEL: Record<string, string> = { pilotId: 'Pilot', departAt: 'Date and time', readyC: 'Ready temperature', floorC: 'Overnight floor', holdMinutes: 'Start window', notes: 'Notes' };

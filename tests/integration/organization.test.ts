@@ -49,4 +49,13 @@ describe('the organization’s planning settings', () => {
     }
     expect(compared).toBeGreaterThan(0);
   });
+
+  it('30 simultaneous changes: no 5xx, one row, the settings one of the values sent', async () => {
+    await signInAs(DEMO.manager);
+    const sent = Array.from({ length: 30 }, (_, i) => 0.6 + i / 100);
+    const res = await Promise.all(sent.map((v) => call(route.PATCH, { method: 'PATCH', body: { targetChance: v } })));
+    expect(res.map((r) => r.status).every((s) => s === 200)).toBe(true);
+    const now = (await call(route.GET)).body.planning.targetChance;
+    expect(sent.some((v) => Math.abs(v - now) < 1e-9)).toBe(true);
+  });
 });
